@@ -1,0 +1,33 @@
+import type { Metadata, Viewport } from "next";
+import localFont from "next/font/local";
+import "./globals.css";
+
+const text = localFont({
+  src: [
+    { path: "./fonts/inter-latin-400-normal.woff2", weight: "400", style: "normal" },
+    { path: "./fonts/inter-latin-600-normal.woff2", weight: "600", style: "normal" },
+    { path: "./fonts/inter-latin-700-normal.woff2", weight: "700", style: "normal" },
+  ],
+  variable: "--font-text",
+  display: "swap",
+});
+
+export const metadata: Metadata = {
+  title: { default: "Pedalpoint", template: "%s · Pedalpoint" },
+  description: "The band's book of lead sheets and chord charts, in every player's key, on every stand, with or without signal.",
+  applicationName: "Pedalpoint",
+};
+
+export const viewport: Viewport = {
+  themeColor: "#15171c",
+  width: "device-width",
+  initialScale: 1,
+};
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={text.variable}>
+      <body className="min-h-screen font-sans antialiased">{children}</body>
+    </html>
+  );
+}

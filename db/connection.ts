@@ -1,0 +1,27 @@
+// The one place a database client is created. WAL mode and foreign keys on.
+import Database from "better-sqlite3";
+import { Kysely, Migrator, SqliteDialect } from "kysely";
+import fs from "node:fs";
+import path from "node:path";
+import { migrationProvider } from "./migrations";
+import type { Database as Schema } from "./schema";
+
+export function databasePath(): string {
+  return process.env.DATABASE_PATH ?? path.join(process.cwd(), "data", "pedalpoint.db");
+}
+
+export function openDatabase(file = databasePath()): Kysely<Schema> {
+  if (file !== ":memory:") fs.mkdirSync(path.dirname(file), { recursive: true });
+  const sqlite = new Database(file);
+  sqlite.pragma("journal_mode = WAL");
+  sqlite.pragma("foreign_keys = ON");
+  sqlite.pragma("busy_timeout = 5000");
+  return new Kysely<Schema>({ dialect: new SqliteDialect({ database: sqlite }) });
+}
+
+export async function migrateToLatest(db: Kysely<Schema>): Promise<string[]> {
+  const migrator = new Migrator({ db, provider: migrationProvider });
+  const { error, results } = await migrator.migrateToLatest();
+  if (error) throw error instanceof Error ? error : new Error(String(error));
+  return (results ?? []).filter((r) => r.status === "Success").map((r) => r.migrationName);
+}

@@ -1,0 +1,12 @@
+import nextVitals from "eslint-config-next/core-web-vitals";
+import nextTs from "eslint-config-next/typescript";
+
+const config = [
+  ...nextVitals,
+  ...nextTs,
+  {
+    ignores: [".next/**", "node_modules/**", "public/sw.js", "public/**/*.mjs", "next-env.d.ts", "test-results/**", "playwright-report/**", "data/**"],
+  },
+];
+
+export default config;

@@ -1,0 +1,41 @@
+import "server-only";
+// Resolves the acting user's membership in a band and checks it against a permission.
+// Outsiders (and subs whose access has ended) get 404 so the band's existence is not revealed.
+import type { Kysely } from "kysely";
+import type { Database, Membership } from "@/db/schema";
+import { AppError } from "./errors";
+import { CAN, type Permission, describeRoles } from "./roles";
+
+export interface Actor {
+  userId: string;
+  email: string;
+  name: string;
+}
+
+export async function findMembership(db: Kysely<Database>, userId: string, bandId: string, now = new Date()): Promise<Membership | null> {
+  const m = await db
+    .selectFrom("memberships")
+    .selectAll()
+    .where("band_id", "=", bandId)
+    .where("user_id", "=", userId)
+    .executeTakeFirst();
+  if (!m) return null;
+  if (m.expires_at && m.expires_at <= now.toISOString()) return null;
+  return m;
+}
+
+export async function requireMember(
+  db: Kysely<Database>,
+  actor: Actor | null,
+  bandId: string,
+  permission: Permission,
+): Promise<Membership> {
+  if (!actor) throw new AppError("unauthenticated", "Please sign in first.");
+  const m = await findMembership(db, actor.userId, bandId);
+  if (!m) throw new AppError("not_found", "That band was not found.");
+  const allowed: readonly string[] = CAN[permission];
+  if (!allowed.includes(m.role)) {
+    throw new AppError("forbidden", `This needs ${describeRoles(CAN[permission])}; you are a ${m.role} in this band.`);
+  }
+  return m;
+}

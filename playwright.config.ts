@@ -1,0 +1,55 @@
+import { defineConfig, devices } from "@playwright/test";
+
+// End-to-end tests run real Chromium against the production build (`next build` + `next start`),
+// a fresh SQLite file seeded with the demo band, and the local mail and payment fakes.
+const PORT = Number(process.env.E2E_PORT ?? 3100);
+export const baseURL = `http://localhost:${PORT}`;
+
+export default defineConfig({
+  testDir: "tests/e2e",
+  fullyParallel: false,
+  workers: 1,
+  retries: process.env.CI ? 1 : 0,
+  timeout: 60_000,
+  expect: { timeout: 10_000 },
+  reporter: [["list"]],
+  outputDir: "test-results/e2e",
+  use: {
+    baseURL,
+    trace: "retain-on-failure",
+    ...devices["Desktop Chrome"],
+    launchOptions: {
+      executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+      args: [
+        "--no-sandbox",
+        "--headless",
+        "--disable-gpu",
+        "--disable-quic",
+        "--disable-background-networking",
+        "--disable-component-update",
+        "--disable-sync",
+        "--no-first-run",
+      ],
+    },
+  },
+  webServer: {
+    command: process.env.E2E_SKIP_BUILD ? "npm start -- --fresh --seed" : "npm run build && npm start -- --fresh --seed",
+    url: `${baseURL}/api/health`,
+    timeout: 300_000,
+    reuseExistingServer: false,
+    stdout: "pipe",
+    stderr: "pipe",
+    env: {
+      PORT: String(PORT),
+      DATABASE_PATH: "data/e2e/pedalpoint.db",
+      DATA_DIR: "data/e2e",
+      NEXTAUTH_URL: baseURL,
+      NEXTAUTH_SECRET: "e2e-only-secret-not-for-production",
+      MAIL_FAKE: "1",
+      SMTP_PORT: "3125",
+      MAIL_FAKE_HTTP_PORT: "3126",
+      PAYMENT_FAKE: "1",
+      PAYMENT_FAKE_PORT: "3127",
+    },
+  },
+});
