@@ -9,7 +9,8 @@ export type ErrorCode =
   | "unsupported_media_type"
   | "unprocessable"
   | "rate_limited"
-  | "payment_required";
+  | "payment_required"
+  | "gone";
 
 const STATUS: Record<ErrorCode, number> = {
   bad_request: 400,
@@ -22,6 +23,7 @@ const STATUS: Record<ErrorCode, number> = {
   unsupported_media_type: 415,
   unprocessable: 422,
   rate_limited: 429,
+  gone: 410,
 };
 
 export interface FieldIssue {

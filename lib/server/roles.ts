@@ -13,6 +13,8 @@ export const CAN = {
   shareWithSubs: ["leader"],
   billing: ["leader"],
   personalMarks: ["leader", "arranger", "player", "sub"],
+  /** Anything every member may do about their own membership (their part, leaving the band). */
+  belong: ["leader", "arranger", "player", "sub"],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof CAN;

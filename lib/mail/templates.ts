@@ -1,0 +1,69 @@
+// The words of every e-mail Pedalpoint sends, each with a plain-text and an HTML part.
+import type { MailMessage } from "./index";
+
+function escapeHtml(s: string): string {
+  return s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c] ?? c);
+}
+
+function layout(title: string, paragraphs: string[], button: { label: string; href: string }, footer: string): string {
+  const body = paragraphs.map((p) => `<p style="margin:0 0 16px">${escapeHtml(p)}</p>`).join("");
+  return `<!doctype html><html lang="en"><body style="margin:0;background:#fbfaf7;font-family:system-ui,sans-serif;color:#15171c">
+<div style="max-width:520px;margin:0 auto;padding:32px 24px">
+<h1 style="font-size:20px;margin:0 0 20px">${escapeHtml(title)}</h1>
+${body}
+<p style="margin:24px 0"><a href="${escapeHtml(button.href)}" style="background:#a8620f;color:#ffffff;padding:12px 20px;border-radius:6px;text-decoration:none;font-weight:600">${escapeHtml(button.label)}</a></p>
+<p style="margin:0 0 16px;font-size:13px;color:#5b6170">If the button does not work, paste this address into your browser:<br>${escapeHtml(button.href)}</p>
+<p style="margin:0;font-size:13px;color:#5b6170">${escapeHtml(footer)}</p>
+</div></body></html>`;
+}
+
+const ROLE_WORDS: Record<string, string> = {
+  leader: "a leader",
+  arranger: "an arranger",
+  player: "a player",
+  sub: "a sub",
+};
+
+export function inviteMail(p: {
+  to: string;
+  bandName: string;
+  inviterName: string;
+  role: string;
+  link: string;
+  expiresAt: string;
+  accessExpiresAt: string | null;
+}): MailMessage {
+  const role = ROLE_WORDS[p.role] ?? p.role;
+  const lines = [
+    `${p.inviterName} invited you to join ${p.bandName} on Pedalpoint as ${role}.`,
+    `Pedalpoint keeps the band's book of charts and shows each one in your instrument's key, on your phone or tablet, with or without signal.`,
+    p.accessExpiresAt ? `Your access as a sub ends on ${formatWhen(p.accessExpiresAt)}.` : "",
+    `This link works once and expires on ${formatWhen(p.expiresAt)}.`,
+  ].filter(Boolean);
+  const footer = "If you did not expect this invite, you can ignore this e-mail.";
+  return {
+    to: p.to,
+    subject: `Join ${p.bandName} on Pedalpoint`,
+    text: `${lines.join("\n\n")}\n\nAccept the invite:\n${p.link}\n\n${footer}\n`,
+    html: layout(`Join ${p.bandName}`, lines, { label: "Accept the invite", href: p.link }, footer),
+  };
+}
+
+export function signInLinkMail(p: { to: string; link: string; minutes: number }): MailMessage {
+  const lines = [
+    `Here is your sign-in link for Pedalpoint.`,
+    `It works once and expires in ${p.minutes} minutes.`,
+  ];
+  const footer = "If you did not ask for this link, you can ignore this e-mail; nobody can sign in without it.";
+  return {
+    to: p.to,
+    subject: "Your Pedalpoint sign-in link",
+    text: `${lines.join("\n\n")}\n\nSign in:\n${p.link}\n\n${footer}\n`,
+    html: layout("Sign in to Pedalpoint", lines, { label: "Sign in", href: p.link }, footer),
+  };
+}
+
+function formatWhen(iso: string): string {
+  const d = new Date(iso);
+  return `${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;
+}

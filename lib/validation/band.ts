@@ -1,0 +1,56 @@
+// Bodies for bands, members and invites.
+import { z } from "zod";
+import { EmailSchema, IdSchema, InstrumentIdSchema, IsoDateTimeSchema, RoleSchema } from "./common";
+
+export const BandCreateSchema = z
+  .object({
+    name: z.string().trim().min(1, "A band needs a name").max(120, "That name is too long (120 characters at most)"),
+    city: z.string().trim().max(120, "That city is too long (120 characters at most)").nullable().default(null),
+    instrument: InstrumentIdSchema.default("concert"),
+  })
+  .strict();
+export type BandCreate = z.infer<typeof BandCreateSchema>;
+
+export const InviteCreateSchema = z
+  .object({
+    email: EmailSchema,
+    role: RoleSchema,
+    instrument: InstrumentIdSchema.default("concert"),
+    /** For a sub: when their access ends. */
+    accessExpiresAt: IsoDateTimeSchema.nullable().default(null),
+  })
+  .strict();
+export type InviteCreate = z.infer<typeof InviteCreateSchema>;
+
+export const MemberUpdateSchema = z
+  .object({
+    role: RoleSchema.optional(),
+    instrument: InstrumentIdSchema.optional(),
+    expiresAt: IsoDateTimeSchema.nullable().optional(),
+  })
+  .strict()
+  .refine((v) => v.role !== undefined || v.instrument !== undefined || v.expiresAt !== undefined, {
+    message: "Send a role, an instrument or an access end time",
+  });
+export type MemberUpdate = z.infer<typeof MemberUpdateSchema>;
+
+export const InviteAcceptSchema = z
+  .object({ bandId: IdSchema.optional() })
+  .strict();
+
+export const MyInstrumentSchema = z
+  .object({
+    instrument: InstrumentIdSchema,
+    /** Set to change the part you read in one band; leave out to change your default. */
+    bandId: IdSchema.optional(),
+  })
+  .strict();
+export type MyInstrument = z.infer<typeof MyInstrumentSchema>;
+
+export const BandParams = z.object({ bandId: IdSchema }).strict();
+export const ChartParams = z.object({ bandId: IdSchema, chartId: IdSchema }).strict();
+export const RevisionParams = z
+  .object({ bandId: IdSchema, chartId: IdSchema, revision: z.coerce.number().int().min(1) })
+  .strict();
+export const MemberParams = z.object({ bandId: IdSchema, userId: IdSchema }).strict();
+export const TokenParams = z.object({ token: z.string().min(10).max(200).regex(/^[A-Za-z0-9_-]+$/) }).strict();

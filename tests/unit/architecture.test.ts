@@ -1,0 +1,50 @@
+// The house rules that keep the pure core pure, checked on the source itself.
+import fs from "node:fs";
+import path from "node:path";
+import { describe, expect, it } from "vitest";
+
+const root = path.resolve(import.meta.dirname, "../..");
+
+function sourceFiles(dir: string): string[] {
+  const abs = path.join(root, dir);
+  if (!fs.existsSync(abs)) return [];
+  return fs.readdirSync(abs, { recursive: true, withFileTypes: true })
+    .filter((d) => d.isFile() && /\.(ts|tsx)$/.test(d.name))
+    .map((d) => path.join(d.parentPath, d.name));
+}
+
+function imports(file: string): string[] {
+  // Type-only imports vanish at compile time, so they do not count.
+  const text = fs.readFileSync(file, "utf8").replace(/^import type .*$/gm, "");
+  return [...text.matchAll(/(?:import|export)[^'"]*?from\s+["']([^"']+)["']|import\(\s*["']([^"']+)["']\s*\)/g)].map((m) => m[1] ?? m[2] ?? "");
+}
+
+describe("the pure core", () => {
+  for (const dir of ["lib/music", "lib/chart", "lib/render", "lib/setlist", "lib/musicxml"]) {
+    it(`${dir} imports nothing from app, db, components, Dexie, React or Node I/O`, () => {
+      const bad = sourceFiles(dir).flatMap((f) =>
+        imports(f)
+          .filter((s) => /^(@\/(app|db|components|lib\/server|lib\/offline)\b|react\b|react-dom|dexie|vexflow|next\b|node:fs|fs$|better-sqlite3)/.test(s))
+          .map((s) => `${path.relative(root, f)} → ${s}`),
+      );
+      expect(bad).toEqual([]);
+    });
+  }
+
+  it("only components/chart imports VexFlow", () => {
+    const offenders = ["app", "components", "lib"].flatMap(sourceFiles)
+      .filter((f) => !path.relative(root, f).startsWith(path.join("components", "chart")))
+      .filter((f) => imports(f).some((s) => s === "vexflow" || s.startsWith("vexflow/")))
+      .map((f) => path.relative(root, f));
+    expect(offenders).toEqual([]);
+  });
+
+  it("every module that touches the database is marked server-only", () => {
+    const unmarked = ["lib/server", "app"].flatMap(sourceFiles)
+      .filter((f) => !f.endsWith("route.ts") && !/\/(page|layout|actions)\.tsx?$/.test(f))
+      .filter((f) => imports(f).some((s) => s === "@/db" || s.startsWith("@/db/")))
+      .filter((f) => !/^import "server-only";/m.test(fs.readFileSync(f, "utf8")))
+      .map((f) => path.relative(root, f));
+    expect(unmarked).toEqual([]);
+  });
+});
