@@ -1,6 +1,7 @@
 import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
 import "./globals.css";
+import { SerwistProvider } from "@serwist/next/react";
 
 const text = localFont({
   src: [
@@ -27,7 +28,12 @@ export const viewport: Viewport = {
 export default function RootLayout({ children }: { children: React.ReactNode }) {
   return (
     <html lang="en" className={text.variable}>
-      <body className="min-h-screen font-sans antialiased">{children}</body>
+      <body className="min-h-screen font-sans antialiased">
+        {/* The service worker keeps the app usable with no signal (worker/sw.ts). The book itself syncs into IndexedDB. */}
+        <SerwistProvider swUrl="/sw.js" disable={process.env.NODE_ENV === "development"} reloadOnOnline={false} cacheOnNavigation={false}>
+          {children}
+        </SerwistProvider>
+      </body>
     </html>
   );
 }

@@ -1,9 +1,11 @@
 // In-code migration provider: every migration imported by name, in order.
 import type { Migration, MigrationProvider } from "kysely";
 import * as m001 from "./001_initial";
+import * as m002 from "./002_sync_feed_index";
 
 export const migrations: Record<string, Migration> = {
   "001_initial": m001,
+  "002_sync_feed_index": m002,
 };
 
 export const migrationProvider: MigrationProvider = {

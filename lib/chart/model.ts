@@ -95,6 +95,12 @@ export interface IntroResult {
   advice: string;
   /** Kinds that would fit better, when `fits` is false. */
   suggestions: IntroKind[];
+  /** The options this intro was built with, defaults filled in. */
+  choice?: IntroChoice;
+  /** Section labels inside a long intro (a solo chorus shows the form's sections), parallel to `bars`. */
+  labels?: (string | null)[];
+  /** For `vamp`: the two chords used, concert pitch. */
+  vamp?: [string, string];
 }
 
 export type Barline = "single" | "double" | "final";

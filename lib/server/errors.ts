@@ -29,6 +29,9 @@ const STATUS: Record<ErrorCode, number> = {
 export interface FieldIssue {
   field: string;
   message: string;
+  /** For the chart text: where the problem is (1-based). */
+  line?: number;
+  column?: number;
 }
 
 export class AppError extends Error {

@@ -1,0 +1,20 @@
+import { z } from "zod";
+import { ready } from "@/db";
+import { deleteChart, getChart, updateChart } from "@/lib/server/charts";
+import { route } from "@/lib/server/handler";
+import { ChartParams } from "@/lib/validation/band";
+import { ChartUpdateSchema } from "@/lib/validation/chart-input";
+
+export const GET = route({ params: ChartParams }, async ({ actor, params }) => ({
+  chart: await getChart(await ready(), actor, params.bandId, params.chartId),
+}));
+
+export const PUT = route({ params: ChartParams, body: ChartUpdateSchema }, async ({ actor, params, body }) => ({
+  chart: await updateChart(await ready(), actor, params.bandId, params.chartId, body),
+}));
+
+const DeleteQuery = z.object({ baseRevision: z.coerce.number().int().min(1).optional() }).strict();
+
+export const DELETE = route({ params: ChartParams, query: DeleteQuery }, async ({ actor, params, query }) => ({
+  deleted: await deleteChart(await ready(), actor, params.bandId, params.chartId, { baseRevision: query.baseRevision }),
+}));

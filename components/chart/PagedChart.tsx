@@ -1,0 +1,111 @@
+"use client";
+// One chart as pages fitted to a box: lays out for the box's size, draws every page ahead into
+// stacked sheets, and turns by swapping which sheet is visible (PageFlipper). The shown page's
+// element carries data-testid="chart-page" with data-page / data-pages for outside checks.
+import { useEffect, useImperativeHandle, useMemo, useRef, useState, type Ref } from "react";
+import type { Arrangement } from "@/lib/chart/model";
+import { layoutChart } from "@/lib/render/layout";
+import type { LayoutOptions } from "@/lib/render/types";
+import type { View } from "@/lib/render/half";
+import { PageFlipper } from "@/components/bandstand/flipper";
+import { drawSheets, musicFontsReady } from "./draw-sheets";
+import type { PageText } from "./engrave";
+import "./sheets.css";
+
+export interface PagedChartControls {
+  next: () => boolean;
+  back: () => boolean;
+  goToPage: (page: number) => void;
+}
+
+export interface PagedChartProps {
+  arrangement: Arrangement;
+  text: PageText;
+  width: number;
+  height: number;
+  halfTurns?: boolean;
+  layout?: Partial<LayoutOptions>;
+  /** Accessible name of the page region. */
+  label: string;
+  controls?: Ref<PagedChartControls>;
+  onView?: (view: View, page: number, pages: number, atStart: boolean, atEnd: boolean) => void;
+  className?: string;
+}
+
+export function PagedChart({ arrangement, text, width, height, halfTurns = false, layout: extra, label, controls, onView, className }: PagedChartProps) {
+  const host = useRef<HTMLDivElement>(null);
+  const live = useRef<HTMLParagraphElement>(null);
+  const flipper = useRef<PageFlipper | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const onViewRef = useRef(onView);
+  const textKey = JSON.stringify(text);
+  useEffect(() => {
+    onViewRef.current = onView;
+  });
+  const layout = useMemo(
+    () => (width > 0 && height > 0 ? layoutChart(arrangement, { width, height, ...extra }) : null),
+    // `extra` is compared by value so callers can pass a literal.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+    [arrangement, width, height, JSON.stringify(extra ?? {})],
+  );
+
+  useImperativeHandle(controls, () => ({
+    next: () => flipper.current?.go(1) ?? false,
+    back: () => flipper.current?.go(-1) ?? false,
+    goToPage: (p: number) => flipper.current?.goToPage(p),
+  }));
+
+  useEffect(() => {
+    const el = host.current;
+    if (!el || !layout) return;
+    let job: ReturnType<typeof drawSheets> | null = null;
+    let gone = false;
+    const keepPage = flipper.current ? Number(el.dataset.page ?? 1) : 1;
+    el.dataset.drawn = "false";
+    musicFontsReady()
+      .then(() => {
+        if (gone) return;
+        job = drawSheets(el, { layout, writtenKey: arrangement.writtenKey, text: JSON.parse(textKey) as PageText });
+        const pages = layout.pages.length;
+        flipper.current = new PageFlipper(
+          el,
+          pages,
+          { halfFractions: layout.pages.map((p) => p.halfY / p.height) },
+          live.current,
+          halfTurns,
+          (view, index, views) => onViewRef.current?.(view, Number(el.dataset.page), pages, index === 0, index === views.length - 1),
+        );
+        flipper.current.goToPage(Math.min(keepPage, pages));
+        el.dataset.drawn = "true";
+        return job.done.then(() => {
+          if (!gone) el.dataset.drawnAll = "true";
+        });
+      })
+      .catch((e: unknown) => setError(e instanceof Error ? e.message : String(e)));
+    return () => {
+      gone = true;
+      job?.cancel();
+    };
+  }, [layout, arrangement.writtenKey, textKey, halfTurns]);
+
+  return (
+    <div className={className} style={{ width, height, position: "relative" }}>
+      <div
+        ref={host}
+        className="pp-sheets"
+        style={{ width, height }}
+        data-testid="chart-page"
+        data-page="1"
+        data-pages={layout?.pages.length ?? 0}
+        role="region"
+        aria-label={label}
+      />
+      <p ref={live} aria-live="polite" className="sr-only" />
+      {error ? (
+        <p role="alert" className="absolute inset-x-0 top-4 text-center font-semibold">
+          This chart could not be drawn: {error}
+        </p>
+      ) : null}
+    </div>
+  );
+}

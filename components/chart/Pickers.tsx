@@ -1,0 +1,122 @@
+"use client";
+// The reading choices on the chart page: the part (instrument), a singer's key, and how the tune starts.
+import { useId } from "react";
+import type { IntroKind, IntroResult } from "@/lib/chart/model";
+import { INSTRUMENT_IDS, INSTRUMENTS } from "@/lib/music/instruments";
+import { CONTROL } from "@/components/ui/Field";
+import { cx } from "@/components/ui/cx";
+
+export function InstrumentPicker({ value, onChange }: { value: string; onChange: (id: string) => void }) {
+  const id = useId();
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={id} className="font-semibold">
+        Part
+      </label>
+      <select id={id} data-testid="instrument-picker" className={CONTROL} value={value} onChange={(e) => onChange(e.target.value)}>
+        {INSTRUMENT_IDS.map((i) => (
+          <option key={i} value={i}>
+            {INSTRUMENTS[i].label}
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}
+
+const MAJOR_KEYS = ["C", "Db", "D", "Eb", "E", "F", "Gb", "G", "Ab", "A", "Bb", "B"];
+const MINOR_KEYS = ["Cm", "C#m", "Dm", "Ebm", "Em", "Fm", "F#m", "Gm", "G#m", "Am", "Bbm", "Bm"];
+
+function pretty(k: string) {
+  return k.replace("b", "♭").replace("#", "♯").replace(/m$/, " minor");
+}
+
+/** Concert key to play in (a singer's key); the chart's own key is the first choice. */
+export function KeyPicker({ chartKey, value, onChange }: { chartKey: string; value: string; onChange: (key: string | null) => void }) {
+  const id = useId();
+  const minor = /m$/.test(chartKey);
+  const keys = minor ? MINOR_KEYS : MAJOR_KEYS;
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={id} className="font-semibold">
+        Concert key
+      </label>
+      <select
+        id={id}
+        data-testid="key-picker"
+        className={CONTROL}
+        value={value}
+        onChange={(e) => onChange(e.target.value === chartKey ? null : e.target.value)}
+      >
+        <option value={chartKey}>{pretty(chartKey)} (as written)</option>
+        {keys
+          .filter((k) => k !== chartKey)
+          .map((k) => (
+            <option key={k} value={k}>
+              {pretty(k)}
+            </option>
+          ))}
+      </select>
+    </div>
+  );
+}
+
+export const INTRO_NAMES: Record<IntroKind, string> = {
+  "dominant-pedal": "Dominant pedal (sus)",
+  "last-bars": "Last bars of the form",
+  vamp: "Two-chord vamp",
+  "solo-chorus": "Solo chorus first",
+  turnaround: "Turnaround",
+  "two-five": "ii–V into the top",
+  composed: "The tune's own intro",
+};
+
+function preview(result: IntroResult): string {
+  const bars = result.bars.slice(0, 8).map((b) => (b.simile ? "%" : b.chords.map((c) => c.symbol).join(" ")));
+  return `| ${bars.join(" | ")} |${result.bars.length > 8 ? ` … ${result.bars.length} bars` : ""}`;
+}
+
+/** Each intro kind with what the analysis says about it for this tune, and its chords (concert). */
+export function IntroPicker({
+  value,
+  options,
+  onChange,
+}: {
+  value: IntroKind | null;
+  options: IntroResult[];
+  onChange: (kind: IntroKind | null) => void;
+}) {
+  const name = useId();
+  return (
+    <fieldset data-testid="intro-picker" className="flex flex-col gap-2">
+      <legend className="mb-1 font-semibold">How it starts</legend>
+      <label className={cx("flex gap-3 rounded-md border p-3", value === null ? "border-brass bg-brass-light/40" : "border-paper-dim")}>
+        <input type="radio" name={name} value="" checked={value === null} onChange={() => onChange(null)} className="mt-1 size-5" />
+        <span>
+          <span className="font-semibold">Straight from the top</span>
+          <span className="block text-sm text-ink-muted">No intro: the count-off, then bar 1.</span>
+        </span>
+      </label>
+      {options.map((o) => (
+        <label
+          key={o.kind}
+          data-kind={o.kind}
+          data-fits={o.fits}
+          className={cx("flex gap-3 rounded-md border p-3", value === o.kind ? "border-brass bg-brass-light/40" : "border-paper-dim")}
+        >
+          <input type="radio" name={name} value={o.kind} checked={value === o.kind} onChange={() => onChange(o.kind)} className="mt-1 size-5" />
+          <span className="min-w-0">
+            <span className="font-semibold">{INTRO_NAMES[o.kind]}</span>{" "}
+            <span className={cx("text-sm font-semibold", o.fits ? "text-green-800" : "text-red-800")}>{o.fits ? "suits this tune" : "doesn't suit"}</span>
+            <span className="block text-sm text-ink-muted">{o.advice}</span>
+            {o.bars.length ? (
+              <span className="mt-1 block overflow-x-auto whitespace-nowrap font-mono text-sm" aria-label={`Chords, concert: ${preview(o)}`}>
+                {preview(o)}
+              </span>
+            ) : null}
+          </span>
+        </label>
+      ))}
+    </fieldset>
+  );
+}

@@ -1,0 +1,161 @@
+// Draws one laid-out page into an SVG with VexFlow. Positions come from lib/render; this file only
+// turns them into staves, slashes, barlines and text. VexFlow's Bravura and Academico come bundled as
+// data URLs (vexflow/bravura), so drawing never fetches a font.
+import {
+  Barline,
+  Beam,
+  Accidental,
+  Formatter,
+  GlyphNote,
+  RepeatNote,
+  Renderer,
+  Stave,
+  StaveNote,
+  Voice,
+  type Note,
+  type RenderContext,
+} from "vexflow/bravura";
+import type { ChartLayout, Page, PlacedBar, System } from "@/lib/render/types";
+import { melodyNotes, melodyTies } from "./melody";
+import { addText, drawChordSymbol, drawEndingBracket, drawLabelBox } from "./svg-text";
+
+export interface PageText {
+  title: string;
+  composer: string;
+  /** "medium swing · ♩ = 160 · Key of F" */
+  details: string;
+  partLabel: string;
+}
+
+export interface EngraveInput {
+  layout: ChartLayout;
+  page: Page;
+  writtenKey: string;
+  text: PageText;
+  /** Draw the beat slashes with VexFlow's formatter (true) or leave them out (benchmarks). */
+  slashes?: boolean;
+}
+
+const LABEL_FONT = 15;
+/** SMuFL noteheadSlashHorizontalEnds: a beat slash with no stem. */
+const SLASH = "\uE101";
+
+function vexKey(key: string): string {
+  const k = key.replace("♭", "b").replace("♯", "#");
+  return /^[A-G][b#]?m?$/.test(k) ? k : "C";
+}
+
+function endBarline(b: PlacedBar): number {
+  if (b.bar.repeatEnd) return Barline.type.REPEAT_END;
+  if (b.bar.barline === "final") return Barline.type.END;
+  if (b.bar.barline === "double") return Barline.type.DOUBLE;
+  return Barline.type.SINGLE;
+}
+
+function beatNotes(beats: number, unit: number): Note[] {
+  const duration = unit === 2 ? "h" : unit === 8 ? "8" : "q";
+  return Array.from({ length: beats }, () => new GlyphNote(SLASH, { duration }, { line: 2 }));
+}
+
+function drawBar(ctx: RenderContext, layout: ChartLayout, b: PlacedBar, system: System, key: string, slashes: boolean): Note[] {
+  const stave = new Stave(b.x, system.staffY, b.width, { spaceAboveStaffLn: 0, spaceBelowStaffLn: 0 });
+  if (b.showClef) stave.addClef(layout.clef);
+  if (b.showKey) stave.addKeySignature(key);
+  if (b.showTime) stave.addTimeSignature(`${layout.meter.beats}/${layout.meter.unit}`);
+  if (b.bar.repeatStart) stave.setBegBarType(Barline.type.REPEAT_BEGIN);
+  stave.setEndBarType(endBarline(b));
+  stave.setContext(ctx).draw();
+  if (b.bar.repeatTimes && b.bar.repeatEnd) {
+    addText(ctx, `×${b.bar.repeatTimes}`, b.x + b.width - 4, system.staffY + 58, { size: 14, anchor: "end", italic: true });
+  }
+
+  let notes: Note[];
+  const melody = b.bar.melody?.length && !b.bar.simile ? melodyNotes(b.bar.melody, layout.clef) : null;
+  if (b.bar.simile) notes = [new RepeatNote("1", { duration: "w", alignCenter: true })];
+  else if (melody) notes = melody;
+  else if (slashes) notes = beatNotes(layout.meter.beats, layout.meter.unit);
+  else notes = [];
+  if (notes.length) {
+    const voice = new Voice({ numBeats: layout.meter.beats, beatValue: layout.meter.unit }).setMode(Voice.Mode.SOFT);
+    voice.addTickables(notes);
+    if (melody) Accidental.applyAccidentals([voice], key);
+    const beams = melody ? Beam.generateBeams(melody.filter((n): n is StaveNote => n instanceof StaveNote)) : [];
+    new Formatter().joinVoices([voice]).formatToStave([voice], stave);
+    voice.draw(ctx, stave);
+    beams.forEach((beam) => beam.setContext(ctx).draw());
+    if (melody && b.bar.melody) melodyTies(b.bar.melody, melody).forEach((tie) => tie.setContext(ctx).draw());
+  }
+  return notes;
+}
+
+function drawSymbols(ctx: RenderContext, layout: ChartLayout, b: PlacedBar, system: System, notes: Note[], nextX: number) {
+  const y = system.staffY - 12;
+  b.chords.forEach((box, i) => {
+    // Sit over the beat's slash when there is room; never past the next symbol's box.
+    const beatNote = notes.length === layout.meter.beats ? notes[Math.floor(box.beat)] : undefined;
+    const want = beatNote ? beatNote.getAbsoluteX() - 2 : box.x;
+    const limit = (b.chords[i + 1]?.x ?? nextX) - box.width - 6;
+    const x = Math.max(box.x, Math.min(want, limit));
+    drawChordSymbol(ctx, box.symbol, x, y, box.size);
+  });
+}
+
+function drawLabels(ctx: RenderContext, b: PlacedBar, system: System) {
+  const top = system.y + 2;
+  let x = b.x;
+  if (b.label) x += drawLabelBox(ctx, b.label, b.x, top, LABEL_FONT, b.intro) + 8;
+  if (b.endingStart || b.endingEnd || b.bar.ending !== null) {
+    drawEndingBracket(ctx, {
+      x1: b.endingStart ? x : b.x,
+      x2: b.x + b.width - (b.endingEnd ? 6 : 0),
+      y: top + 4,
+      label: b.endingStart && b.bar.ending !== null ? `${b.bar.ending}.` : null,
+      open: b.endingStart,
+      close: b.endingEnd && b.bar.ending === 1,
+    });
+  }
+}
+
+function drawHeader(ctx: RenderContext, page: Page, text: PageText) {
+  if (!page.header) return;
+  const cx = page.width / 2;
+  addText(ctx, text.title, cx, page.header.y + 30, { size: 28, anchor: "middle", bold: true, cls: "pp-title" });
+  if (text.details) addText(ctx, text.details, 16, page.header.y + 60, { size: 15, cls: "pp-details" });
+  if (text.composer) addText(ctx, text.composer, page.width - 16, page.header.y + 60, { size: 15, anchor: "end", italic: true });
+}
+
+/** Draws `input.page` into `host` (emptied first) and returns the SVG element. */
+export function engravePage(host: HTMLElement, input: EngraveInput): SVGSVGElement {
+  const { layout, page, text } = input;
+  host.replaceChildren();
+  const renderer = new Renderer(host as HTMLDivElement, Renderer.Backends.SVG);
+  renderer.resize(Math.round(page.width * page.zoom), Math.round(page.height * page.zoom));
+  const ctx = renderer.getContext();
+  ctx.scale(page.zoom, page.zoom);
+  ctx.setFillStyle("currentColor");
+  ctx.setStrokeStyle("currentColor");
+  const svg = host.querySelector("svg") as SVGSVGElement;
+  svg.setAttribute("viewBox", `0 0 ${page.width} ${page.height}`);
+  svg.removeAttribute("width");
+  svg.removeAttribute("height");
+  svg.setAttribute("role", "img");
+  svg.setAttribute("aria-label", `${text.title}, ${text.partLabel}, page ${page.number}`);
+
+  addText(ctx, text.partLabel, page.width - 12, 17, { size: 14, anchor: "end", bold: true, cls: "pp-part" });
+  if (page.number > 1) addText(ctx, `${text.title} · ${page.number}`, 12, 17, { size: 13, cls: "pp-running" });
+  drawHeader(ctx, page, text);
+
+  const key = vexKey(input.writtenKey);
+  for (const system of page.systems) {
+    system.bars.forEach((b, i) => {
+      const group = ctx.openGroup(b.intro ? "pp-bar pp-intro" : "pp-bar") as SVGGElement | undefined;
+      group?.setAttribute("data-bar", String(b.bar.index));
+      const notes = drawBar(ctx, layout, b, system, key, input.slashes ?? true);
+      const next = system.bars[i + 1];
+      drawSymbols(ctx, layout, b, system, notes, next ? next.noteX : b.x + b.width + 4);
+      drawLabels(ctx, b, system);
+      ctx.closeGroup();
+    });
+  }
+  return svg;
+}

@@ -1,0 +1,69 @@
+// The chart's reading choices as they sit in the address: ?instrument=bb&intro=vamp&introBars=4&key=F.
+// Parsed with zod at this boundary; anything unreadable falls back to the default instead of failing.
+import { z } from "zod";
+import { IntroChoiceSchema, IntroKindSchema, type IntroChoice } from "@/lib/chart/model";
+import { INSTRUMENT_IDS, type InstrumentId } from "@/lib/music/instruments";
+
+export interface ChartParams {
+  instrument: InstrumentId | null;
+  key: string | null;
+  /** undefined: the chart's own default (its composed intro, if any); null: no intro ("none"). */
+  intro: IntroChoice | null | undefined;
+}
+
+interface ReadableParams {
+  get(name: string): string | null;
+}
+
+const Instrument = z.enum(INSTRUMENT_IDS);
+const Key = z.string().regex(/^[A-G][b#]?m?$/);
+const Count = z.coerce.number().int().min(1).max(64);
+
+function optional<T>(schema: z.ZodType<T>, value: string | null): T | undefined {
+  if (value === null || value === "") return undefined;
+  const r = schema.safeParse(value);
+  return r.success ? r.data : undefined;
+}
+
+export function parseChartParams(params: ReadableParams): ChartParams {
+  const kind = optional(IntroKindSchema, params.get("intro"));
+  let intro: IntroChoice | null | undefined = params.get("intro") === "none" ? null : undefined;
+  if (kind) {
+    const vamp = params.get("vamp")?.split(",").map((s) => s.trim());
+    const candidate = {
+      kind,
+      bars: optional(Count, params.get("introBars")),
+      repeats: optional(Count, params.get("introRepeats")),
+      tritoneSub: params.get("tritone") === "1" ? true : undefined,
+      variant: optional(z.enum(["I-vi-ii-V", "iii-VI-ii-V"]), params.get("variant")),
+      vamp: vamp?.length === 2 ? vamp : undefined,
+    };
+    const r = IntroChoiceSchema.safeParse(candidate);
+    intro = r.success ? r.data : { kind };
+  }
+  return {
+    instrument: optional(Instrument, params.get("instrument")) ?? null,
+    key: optional(Key, params.get("key")) ?? null,
+    intro,
+  };
+}
+
+/** Query string for a set of choices (only what differs from the chart's own defaults). */
+export function chartQuery(p: { instrument?: string | null; key?: string | null; intro?: IntroChoice | null; list?: string | null }): string {
+  // `intro: null` is written as intro=none; `undefined` leaves the chart's default.
+  const q = new URLSearchParams();
+  if (p.instrument) q.set("instrument", p.instrument);
+  if (p.key) q.set("key", p.key);
+  if (p.intro === null) q.set("intro", "none");
+  if (p.intro) {
+    q.set("intro", p.intro.kind);
+    if (p.intro.bars) q.set("introBars", String(p.intro.bars));
+    if (p.intro.repeats) q.set("introRepeats", String(p.intro.repeats));
+    if (p.intro.tritoneSub) q.set("tritone", "1");
+    if (p.intro.variant) q.set("variant", p.intro.variant);
+    if (p.intro.vamp) q.set("vamp", p.intro.vamp.join(","));
+  }
+  if (p.list) q.set("list", p.list);
+  const s = q.toString();
+  return s ? `?${s}` : "";
+}

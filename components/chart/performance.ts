@@ -1,0 +1,38 @@
+// From a chart and the reader's choices to what gets laid out: the arrangement and the page text.
+import type { Arrangement, Chart, IntroChoice } from "@/lib/chart/model";
+import { arrange } from "./core";
+import { partLabel } from "@/lib/render/part-label";
+import type { PageText } from "./engrave";
+
+export interface PerformanceChoice {
+  chart: Chart;
+  instrument: string;
+  key?: string | null;
+  /** undefined plays the chart's composed intro if it has one; null none. */
+  intro?: IntroChoice | null;
+}
+
+export interface Performance {
+  arrangement: Arrangement;
+  text: PageText;
+}
+
+export function prettyKeyName(key: string): string {
+  const minor = /m$/.test(key);
+  const tonic = (minor ? key.slice(0, -1) : key).replace("b", "♭").replace("#", "♯");
+  return `${tonic} ${minor ? "minor" : "major"}`;
+}
+
+export function buildPerformance(choice: PerformanceChoice): Performance {
+  const arrangement = arrange(choice.chart, {
+    instrument: choice.instrument,
+    key: choice.key ?? undefined,
+    intro: choice.intro,
+  });
+  const c = choice.chart;
+  const details = [c.feel, c.tempo ? `♩ = ${c.tempo}` : "", `Key of ${prettyKeyName(arrangement.writtenKey)}`].filter(Boolean).join(" · ");
+  return {
+    arrangement,
+    text: { title: c.title, composer: c.composer, details, partLabel: partLabel(choice.instrument) },
+  };
+}

@@ -1,0 +1,85 @@
+// Text, boxes and brackets drawn straight into VexFlow's SVG. Chord symbols are one <text> with a
+// raised <tspan> for extensions, so the browser places the parts and nothing needs measuring.
+import type { RenderContext } from "vexflow/bravura";
+import { SUPERSCRIPT_SCALE, splitSymbol, textWidth } from "@/lib/render/metrics";
+import { chordParts } from "./chord-parts";
+
+const NS = "http://www.w3.org/2000/svg";
+export const TEXT_FONT = "Academico, Georgia, serif";
+
+interface TextStyle {
+  size: number;
+  anchor?: "start" | "middle" | "end";
+  bold?: boolean;
+  italic?: boolean;
+  cls?: string;
+}
+
+function parentOf(ctx: RenderContext): Element {
+  const c = ctx as unknown as { parent?: Element; svg?: Element };
+  return c.parent ?? (c.svg as Element);
+}
+
+function el<K extends keyof SVGElementTagNameMap>(name: K, attrs: Record<string, string | number>): SVGElementTagNameMap[K] {
+  const e = document.createElementNS(NS, name);
+  for (const [k, v] of Object.entries(attrs)) e.setAttribute(k, String(v));
+  return e;
+}
+
+export function addText(ctx: RenderContext, text: string, x: number, y: number, style: TextStyle): SVGTextElement {
+  const t = el("text", {
+    x,
+    y,
+    "font-family": TEXT_FONT,
+    "font-size": style.size,
+    fill: "currentColor",
+    "text-anchor": style.anchor ?? "start",
+    ...(style.bold ? { "font-weight": "bold" } : {}),
+    ...(style.italic ? { "font-style": "italic" } : {}),
+    ...(style.cls ? { class: style.cls } : {}),
+  });
+  t.textContent = text;
+  parentOf(ctx).appendChild(t);
+  return t;
+}
+
+export function drawChordSymbol(ctx: RenderContext, symbol: string, x: number, y: number, size: number) {
+  const p = symbol === "N.C." ? { ...splitSymbol(symbol), root: "N.C." } : chordParts(symbol);
+  const t = addText(ctx, p.root + p.accidental + p.quality, x, y, { size, cls: "pp-chord" });
+  t.setAttribute("data-symbol", symbol);
+  if (p.superscript) {
+    const sup = el("tspan", { "font-size": Math.round(size * SUPERSCRIPT_SCALE), dy: -Math.round(size * 0.38) });
+    sup.textContent = p.superscript;
+    t.appendChild(sup);
+  }
+  if (p.bass) {
+    const bass = el("tspan", { dy: p.superscript ? Math.round(size * 0.38) : 0 });
+    bass.textContent = "/" + p.bass;
+    t.appendChild(bass);
+  }
+}
+
+/** A boxed rehearsal label; returns the box width. */
+export function drawLabelBox(ctx: RenderContext, label: string, x: number, top: number, size: number, intro: boolean): number {
+  const w = Math.ceil(textWidth(label, size) * 0.9) + 12;
+  const h = size + 8;
+  parentOf(ctx).appendChild(
+    el("rect", { x, y: top, width: w, height: h, rx: 2, fill: "none", stroke: "currentColor", "stroke-width": intro ? 1.5 : 2 }),
+  );
+  addText(ctx, label, x + w / 2, top + h - 6, { size, anchor: "middle", bold: true, cls: intro ? "pp-label pp-intro-label" : "pp-label" });
+  return w;
+}
+
+export function drawEndingBracket(
+  ctx: RenderContext,
+  b: { x1: number; x2: number; y: number; label: string | null; open: boolean; close: boolean },
+) {
+  const hook = 14;
+  const d = [
+    b.open ? `M${b.x1} ${b.y + hook} L${b.x1} ${b.y}` : `M${b.x1} ${b.y}`,
+    `L${b.x2} ${b.y}`,
+    b.close ? `L${b.x2} ${b.y + hook}` : "",
+  ].join(" ");
+  parentOf(ctx).appendChild(el("path", { d, fill: "none", stroke: "currentColor", "stroke-width": 1.5, class: "pp-ending" }));
+  if (b.label) addText(ctx, b.label, b.x1 + 5, b.y + 14, { size: 14, bold: true });
+}

@@ -1,0 +1,55 @@
+"use client";
+// The reader's choices for one chart: from the address first, then this device's memory of the
+// last part chosen in the band, then the membership's instrument, then concert.
+import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { useCallback, useMemo, useSyncExternalStore } from "react";
+import type { IntroChoice } from "@/lib/chart/model";
+import { isInstrumentId, type InstrumentId } from "@/lib/music/instruments";
+import { rememberInstrument, rememberedInstrument } from "@/components/bandstand/settings";
+import { chartQuery, parseChartParams } from "./params";
+
+export interface Choices {
+  instrument: InstrumentId;
+  key: string | null;
+  intro: IntroChoice | null | undefined;
+  list: string | null;
+  setInstrument: (id: string) => void;
+  setKey: (key: string | null) => void;
+  setIntro: (intro: IntroChoice | null) => void;
+  query: string;
+}
+
+const noop = () => () => {};
+
+export function useChoices(bandId: string | null, membershipInstrument: string | null | undefined): Choices {
+  const params = useSearchParams();
+  const router = useRouter();
+  const pathname = usePathname();
+  const parsed = useMemo(() => parseChartParams(params), [params]);
+  const list = params.get("list");
+  const remembered = useSyncExternalStore(noop, () => (bandId ? rememberedInstrument(bandId) : null), () => null);
+  const fallback = [remembered, membershipInstrument].find(isInstrumentId) ?? "concert";
+  const instrument = parsed.instrument ?? fallback;
+
+  const replace = useCallback(
+    (next: { instrument?: string | null; key?: string | null; intro?: IntroChoice | null }) => {
+      const q = chartQuery({ instrument, key: parsed.key, intro: parsed.intro, list, ...next });
+      router.replace(`${window.location.pathname || pathname}${q}`, { scroll: false });
+    },
+    [instrument, parsed.key, parsed.intro, list, router, pathname],
+  );
+
+  return {
+    instrument,
+    key: parsed.key,
+    intro: parsed.intro,
+    list,
+    query: chartQuery({ instrument, key: parsed.key, intro: parsed.intro, list }),
+    setInstrument: (id) => {
+      if (bandId) rememberInstrument(bandId, id);
+      replace({ instrument: id });
+    },
+    setKey: (key) => replace({ key }),
+    setIntro: (intro) => replace({ intro }),
+  };
+}

@@ -1,0 +1,84 @@
+"use client";
+// The band's library: read from the local book (never straight from the network), so it looks and
+// works the same with and without signal. Search, sort and filters live in the address.
+import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { useCallback, useMemo } from "react";
+import { LinkButton } from "@/components/ui/Button";
+import { Notice } from "@/components/ui/Notice";
+import { PageColumn } from "@/components/ui/Page";
+import { useBandCharts, useMembership, useMyBands } from "@/lib/offline/hooks";
+import { useBandRoute } from "@/lib/offline/route";
+import { LibraryControls } from "./LibraryControls";
+import { LibraryTable } from "./LibraryTable";
+import { applyQuery, facets, readQuery, writeQuery, type LibraryQuery, type SortColumn } from "./query";
+
+export function LibraryScreen() {
+  const { bandId } = useBandRoute();
+  const router = useRouter();
+  const pathname = usePathname();
+  const params = useSearchParams();
+  const query = useMemo(() => readQuery(params), [params]);
+  const charts = useBandCharts(bandId ?? "");
+  const membership = useMembership(bandId ?? "");
+  const bands = useMyBands();
+  const band = bands?.find((b) => b.id === bandId);
+  const canEdit = membership?.role === "leader" || membership?.role === "arranger";
+
+  const setQuery = useCallback(
+    (next: LibraryQuery) => router.replace(`${pathname}${writeQuery(next)}`, { scroll: false }),
+    [router, pathname],
+  );
+  const onSort = useCallback(
+    (column: SortColumn) =>
+      setQuery({ ...query, sort: column, dir: query.sort === column && query.dir === "asc" ? "desc" : "asc" }),
+    [query, setQuery],
+  );
+
+  const all = useMemo(() => (charts ?? []).filter((c) => !("conflictOf" in c && c.conflictOf)), [charts]);
+  const shown = useMemo(() => applyQuery(all, query), [all, query]);
+  const { keys, feels } = useMemo(() => facets(all), [all]);
+  const updated = all.filter((c) => c.unseen).length;
+
+  if (!bandId) return null;
+  return (
+    <PageColumn wide>
+      <div className="mb-6 flex flex-wrap items-end justify-between gap-4">
+        <div>
+          <h1 className="text-2xl font-bold tracking-tight sm:text-3xl">Library</h1>
+          <p className="text-ink-muted" data-testid="library-summary">
+            {band ? `${band.name} · ` : ""}
+            {charts === undefined ? "Opening the book…" : `${all.length} ${all.length === 1 ? "chart" : "charts"}`}
+            {updated ? ` · ${updated} updated since you last opened them` : ""}
+          </p>
+        </div>
+        {canEdit ? (
+          <LinkButton href={`/bands/${encodeURIComponent(bandId)}/charts/new`} data-testid="new-chart">
+            New chart
+          </LinkButton>
+        ) : null}
+      </div>
+
+      <LibraryControls query={query} keys={keys} feels={feels} onChange={setQuery} />
+
+      <p className="sr-only" aria-live="polite" data-testid="library-count">
+        {charts === undefined ? "" : `${shown.length} of ${all.length} charts shown`}
+      </p>
+
+      <div className="mt-4">
+        {charts === undefined ? (
+          <p className="py-8 text-center text-ink-muted">Opening the book…</p>
+        ) : all.length === 0 ? (
+          <Notice title="The book is empty">
+            {canEdit
+              ? "Add the band's first chart with “New chart”."
+              : "When the leader or an arranger adds charts, they will appear here."}
+          </Notice>
+        ) : shown.length === 0 ? (
+          <Notice title="No chart matches">Try another search, or clear the filters.</Notice>
+        ) : (
+          <LibraryTable bandId={bandId} charts={shown} query={query} canEdit={canEdit} onSort={onSort} />
+        )}
+      </div>
+    </PageColumn>
+  );
+}

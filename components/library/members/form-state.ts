@@ -1,0 +1,9 @@
+/** What a member-screen server action hands back to its form. */
+export interface MemberFormState {
+  status: "idle" | "ok" | "error";
+  message: string;
+  /** Field name → message, announced beside the field. */
+  fields: Record<string, string>;
+}
+
+export const IDLE: MemberFormState = { status: "idle", message: "", fields: {} };

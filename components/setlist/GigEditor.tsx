@@ -1,0 +1,159 @@
+"use client";
+// The leader's gig editor: the gig's details, its sets and each tune's arrangement, saved as one
+// set list. Checks run here with the same rules as the server, so a refusal shows before saving.
+import { useMemo, useState } from "react";
+import { Button } from "@/components/ui/Button";
+import { Field, SelectField, TextAreaField } from "@/components/ui/Field";
+import { Notice } from "@/components/ui/Notice";
+import type { LocalChart, LocalSetlist } from "@/lib/offline/types";
+import { checkArrangement, groupBySet, MAX_SETS, renumber, type SetlistEntry } from "@/lib/setlist";
+import { newId, saveSetlist, type SaveOutcome } from "./data";
+import { fromLocalInput, toLocalInput } from "./datetime";
+import { SetTunes, type TuneInfo } from "./SetTunes";
+
+export interface Draft {
+  name: string;
+  startsAt: string | null;
+  venue: string;
+  notes: string;
+  entries: SetlistEntry[];
+}
+
+interface Props {
+  bandId: string;
+  setlist: LocalSetlist;
+  initial: SetlistEntry[];
+  charts: LocalChart[];
+}
+
+export function GigEditor({ bandId, setlist, initial, charts }: Props) {
+  const [draft, setDraft] = useState<Draft>({ name: setlist.name, startsAt: setlist.startsAt, venue: setlist.venue, notes: setlist.notes, entries: initial });
+  const [extraSets, setExtraSets] = useState(0);
+  const [dirty, setDirty] = useState(false);
+  const [saving, setSaving] = useState(false);
+  const [outcome, setOutcome] = useState<SaveOutcome | null>(null);
+  const [adding, setAdding] = useState<Record<number, string>>({});
+
+  const tunes = useMemo(() => new Map<string, TuneInfo>(charts.map((c) => [c.id, { title: c.title, chart: c.body }])), [charts]);
+  const highestSet = draft.entries.reduce((n, e) => Math.max(n, e.setNumber), 1);
+  const setCount = Math.min(MAX_SETS, Math.max(highestSet, 1 + extraSets));
+  const bySet = new Map(groupBySet(draft.entries).map((s) => [s.setNumber, s.entries]));
+  const problems = draft.entries.flatMap((e) => checkArrangement(tunes.get(e.chartId)?.chart ?? null, e).issues.map((i) => `${tunes.get(e.chartId)?.title ?? "A tune"}: ${i.message}`));
+
+  function update(patch: Partial<Draft>) {
+    setDraft((d) => ({ ...d, ...patch }));
+    setDirty(true);
+    setOutcome(null);
+  }
+  function setEntries(fn: (entries: SetlistEntry[]) => SetlistEntry[]) {
+    setDraft((d) => ({ ...d, entries: renumber(playOrderBySet(fn(d.entries))) }));
+    setDirty(true);
+    setOutcome(null);
+  }
+  function replaceSet(setNumber: number, list: SetlistEntry[]) {
+    setEntries((all) => [...all.filter((e) => e.setNumber !== setNumber), ...list.map((e, i) => ({ ...e, position: i }))]);
+  }
+  function addTune(setNumber: number) {
+    const chartId = adding[setNumber] ?? "";
+    if (!chartId) return;
+    const position = (bySet.get(setNumber) ?? []).length;
+    setEntries((all) => [...all, { id: newId(), chartId, setNumber, position, key: null, tempo: null, intro: null, ending: null, soloOrder: "", notes: "" }]);
+    setAdding((a) => ({ ...a, [setNumber]: "" }));
+  }
+
+  async function save() {
+    setSaving(true);
+    try {
+      const r = await saveSetlist(bandId, setlist.id, setlist.revision, draft, draft.entries);
+      setOutcome(r);
+      if (r.status === "saved" || r.status === "queued") setDirty(false);
+    } finally {
+      setSaving(false);
+    }
+  }
+
+  const options = [{ value: "", label: "Choose a chart from the library…" }, ...charts.map((c) => ({ value: c.id, label: `${c.title} (${c.concertKey})` }))];
+
+  return (
+    <div className="flex flex-col gap-6">
+      <section aria-labelledby="gig-details" className="grid gap-4 sm:grid-cols-2">
+        <h2 id="gig-details" className="sr-only">Gig details</h2>
+        <Field label="Name" value={draft.name} maxLength={120} required onChange={(e) => update({ name: e.target.value })} data-testid="gig-name" />
+        <Field
+          label="Date and time (your time zone)"
+          type="datetime-local"
+          value={toLocalInput(draft.startsAt)}
+          onChange={(e) => update({ startsAt: fromLocalInput(e.target.value) })}
+          data-testid="gig-when"
+        />
+        <Field label="Venue" value={draft.venue} maxLength={160} onChange={(e) => update({ venue: e.target.value })} data-testid="gig-venue" />
+        <TextAreaField label="Notes for the band" rows={2} value={draft.notes} maxLength={2000} onChange={(e) => update({ notes: e.target.value })} data-testid="gig-notes" />
+      </section>
+
+      {Array.from({ length: setCount }, (_, i) => i + 1).map((n) => (
+        <section key={n} aria-labelledby={`set-${n}`} className="rounded-lg border border-ink-soft bg-paper-dim p-4" data-testid={`set-${n}`}>
+          <h2 id={`set-${n}`} className="mb-3 text-xl font-bold">Set {n}</h2>
+          <SetTunes
+            setNumber={n}
+            setCount={setCount}
+            entries={bySet.get(n) ?? []}
+            tunes={tunes}
+            editable
+            onReorder={(list) => replaceSet(n, list)}
+            onChange={(e) => setEntries((all) => all.map((x) => (x.id === e.id ? e : x)))}
+            onRemove={(id) => setEntries((all) => all.filter((x) => x.id !== id))}
+            onMoveToSet={(id, to) => setEntries((all) => all.map((x) => (x.id === id ? { ...x, setNumber: to, position: 999 } : x)))}
+          />
+          <div className="mt-3 flex flex-wrap items-end gap-2">
+            <SelectField
+              label={`Add a tune to set ${n}`}
+              className="min-w-64 flex-1"
+              value={adding[n] ?? ""}
+              onChange={(e) => setAdding((a) => ({ ...a, [n]: e.target.value }))}
+              options={options}
+              data-testid={`add-chart-${n}`}
+            />
+            <Button tone="secondary" onClick={() => addTune(n)} disabled={!adding[n]} data-testid={`add-tune-${n}`}>
+              Add to set {n}
+            </Button>
+          </div>
+        </section>
+      ))}
+      {setCount < MAX_SETS ? (
+        <div>
+          <Button tone="secondary" onClick={() => setExtraSets(setCount)} data-testid="add-set">
+            Add set {setCount + 1}
+          </Button>
+        </div>
+      ) : null}
+
+      <div className="sticky bottom-0 flex flex-wrap items-center gap-3 border-t border-ink-soft bg-paper py-3">
+        <Button onClick={save} disabled={saving || !draft.name.trim() || problems.length > 0} data-testid="save-setlist">
+          {saving ? "Saving…" : "Save set list"}
+        </Button>
+        <span aria-live="polite" className="text-sm" data-testid="save-state">
+          {outcome?.status === "saved" ? "Saved." : outcome?.status === "queued" ? "Saved on this device; it goes to the band when you have signal." : dirty ? "Unsaved changes." : ""}
+        </span>
+      </div>
+      {problems.length > 0 ? (
+        <Notice kind="error" title="Fix these before saving" testId="setlist-problems">
+          <ul className="list-disc pl-5">
+            {problems.map((p) => (
+              <li key={p}>{p}</li>
+            ))}
+          </ul>
+        </Notice>
+      ) : null}
+      {outcome?.status === "invalid" || outcome?.status === "conflict" ? (
+        <Notice kind="error" title={outcome.status === "conflict" ? "Changed by someone else" : "Not saved"} testId="save-error">
+          {outcome.message}
+        </Notice>
+      ) : null}
+    </div>
+  );
+}
+
+/** Keeps set order first, then the order given inside each set. */
+function playOrderBySet(entries: SetlistEntry[]): SetlistEntry[] {
+  return [...entries].sort((a, b) => a.setNumber - b.setNumber || a.position - b.position);
+}

@@ -1,0 +1,9 @@
+// Pedalpoint's chart core: the chart model, its text format, intros and what each player reads.
+export * from "./model";
+export { parseChartText, METADATA_FIELDS } from "./text-parse";
+export { ChartTextError } from "./text-error";
+export { serializeChart, BARS_PER_LINE } from "./text-serialize";
+export { readMelodyNote, formatMelodyNote, noteQuarters, barQuarters } from "./melody";
+export { analyzeTop, firstChord, lastPassBars, type TopAnalysis } from "./form";
+export { generateIntro, suggestIntros, type IntroOptions } from "./intro";
+export { arrange, performanceBars, transposeChart } from "./perform";

@@ -1,0 +1,205 @@
+// Intros: the seven kinds a band starts a tune with, each with a plain explanation and a fit analysis.
+import {
+  chordPitchClasses, dominantOf, formatChord, isDominantChord, isMinorChord, keyScale, parseChord, parseKey,
+  tritoneSubstitute, turnaround, twoFiveInto, type ChordTones,
+} from "@/lib/music";
+import { Note } from "tonal";
+import { INTRO_KINDS, type Bar, type Chart, type IntroChoice, type IntroKind, type IntroResult, type Meter } from "./model";
+import { analyzeTop, barOf, blankBar, firstChord, lastPassBars, plainCopy, type TopAnalysis } from "./form";
+
+export interface IntroOptions {
+  kind: IntroKind;
+  bars?: number;
+  repeats?: number;
+  tritoneSub?: boolean;
+  vamp?: readonly [string, string] | [string, string];
+  variant?: IntroChoice["variant"];
+}
+
+/** Kinds that suit this tune, best first, leaving out `except`. */
+function fitting(top: TopAnalysis, chart: Chart, except: IntroKind): IntroKind[] {
+  const order: IntroKind[] = top.startsOnTonic
+    ? ["turnaround", "dominant-pedal", "two-five", "last-bars"]
+    : ["two-five", "dominant-pedal", "last-bars", "vamp"];
+  if (chart.intro) order.unshift("composed");
+  return order.filter((k) => k !== except);
+}
+
+/** Spread chord cells over `bars` bars: fewer bars → several chords a bar; more → each chord longer. */
+function spread(cells: string[], bars: number, meter: Meter): Bar[] {
+  if (bars >= cells.length) {
+    const per = Math.floor(bars / cells.length);
+    const out: Bar[] = [];
+    cells.forEach((c, i) => {
+      const count = i === cells.length - 1 ? bars - per * (cells.length - 1) : per;
+      for (let k = 0; k < count; k++) out.push(k === 0 ? barOf([c], meter) : { ...blankBar(), simile: true });
+    });
+    return out;
+  }
+  const perBar = Math.ceil(cells.length / bars);
+  const out: Bar[] = [];
+  for (let i = 0; i < cells.length; i += perBar) out.push(barOf(cells.slice(i, i + perBar), meter));
+  return out;
+}
+
+function withRepeats(bars: Bar[], repeats: number): Bar[] {
+  if (repeats <= 1 || bars.length === 0) return bars;
+  const hasMarks = bars.some((b) => b.repeatStart || b.repeatEnd || b.ending !== null);
+  if (hasMarks) return Array.from({ length: repeats }, () => bars.map((b) => ({ ...b, chords: b.chords.map((c) => ({ ...c })) }))).flat();
+  const out = bars.map((b) => ({ ...b }));
+  out[0]!.repeatStart = true;
+  const last = out[out.length - 1]!;
+  last.repeatEnd = true;
+  if (repeats > 2) last.repeatTimes = repeats;
+  return out;
+}
+
+const sub = (symbol: string, on: boolean) => (on && isDominantChord(symbol) ? tritoneSubstitute(symbol) : symbol);
+
+/** Is this chord a dominant of `target` (its V7, or the V7's tritone substitute a half step above)? */
+function dominantInto(symbol: string, target: ChordTones): boolean {
+  const c = parseChord(symbol);
+  if (c.kind !== "chord" || !isDominantChord(c)) return false;
+  const ch = Note.chroma(c.root);
+  const t = Note.chroma(target.root);
+  return ch === (t + 7) % 12 || ch === (t + 1) % 12;
+}
+
+/** Replace the last bar so it points back at the top: ii–V (or V) of the first chord. */
+function turnBack(bars: Bar[], target: ChordTones, meter: Meter, tritone: boolean): { bars: Bar[]; turned: string | null } {
+  const last = bars[bars.length - 1];
+  if (!last) return { bars, turned: null };
+  const lastChord = last.chords[last.chords.length - 1]?.symbol;
+  if (lastChord && dominantInto(lastChord, target)) return { bars, turned: null };
+  const [two, five] = twoFiveInto(formatChord({ ...target, bass: null }), tritone);
+  const cells = meter.beats >= 2 && meter.beats % 2 === 0 ? [two, five] : [five];
+  const turnedBar: Bar = { ...barOf(cells, meter), repeatStart: last.repeatStart, repeatEnd: last.repeatEnd, ending: last.ending };
+  if (last.repeatTimes) turnedBar.repeatTimes = last.repeatTimes;
+  return { bars: [...bars.slice(0, -1), turnedBar], turned: cells.join(" ") };
+}
+
+function suggestedVamp(target: ChordTones): [string, string] {
+  const t = formatChord({ ...target, bass: null, alterations: [] });
+  if (isDominantChord(target)) return [`${target.root}7sus4`, `${target.root}7`];
+  if (isMinorChord(target)) {
+    if (target.quality === "m7b5" || target.quality.startsWith("dim")) return [t, dominantOf(target.root)];
+    return [t, `${Note.pitchClass(Note.transpose(target.root, "4P"))}7`];
+  }
+  return [t, `${Note.pitchClass(Note.transpose(target.root, "2M"))}m7`];
+}
+
+/** Notes of a chord foreign to the key and to bar 1's chord (a raised 6th/7th is at home in minor). */
+function foreignNotes(symbol: string, chart: Chart, target: ChordTones): string[] {
+  const key = parseKey(chart.key);
+  const home = new Set([...keyScale(key), ...chordPitchClasses(target)].map((p) => Note.chroma(p)));
+  if (key.minor) for (const ivl of ["6M", "7M"]) home.add(Note.chroma(Note.transpose(key.tonic, ivl)));
+  return chordPitchClasses(symbol).filter((p) => !home.has(Note.chroma(p)));
+}
+
+function result(kind: IntroKind, bars: Bar[], fits: boolean, advice: string, suggestions: IntroKind[], extra: Partial<IntroResult> = {}): IntroResult {
+  return { kind, bars, fits, advice, suggestions: fits ? [] : suggestions, ...extra };
+}
+
+export function generateIntro(chart: Chart, opts: IntroOptions): IntroResult {
+  const { kind } = opts;
+  const meter = chart.meter;
+  const top = analyzeTop(chart);
+  const target = firstChord(chart);
+  const tritone = opts.tritoneSub ?? false;
+  const choice: IntroChoice = { kind, ...(opts.bars ? { bars: opts.bars } : {}), ...(opts.repeats ? { repeats: opts.repeats } : {}), ...(tritone ? { tritoneSub: true } : {}) };
+  const others = fitting(top, chart, kind);
+  if (!target && kind !== "composed" && kind !== "solo-chorus") {
+    return result(kind, [], false, "The form has no chords to lead into, so this intro can't be built.", chart.intro ? ["composed"] : ["solo-chorus"], { choice });
+  }
+  const tgt = target!;
+  const topName = top.symbol ?? "the top";
+  switch (kind) {
+    case "dominant-pedal": {
+      const n = opts.bars ?? 4;
+      const v = dominantOf(tgt.root);
+      const pedal = dominantOf(tgt.root, "7sus4");
+      const resolveTo = sub(v, tritone);
+      const bars = [...Array.from({ length: n - 1 }, () => barOf([pedal], meter)), barOf([pedal, resolveTo], meter)];
+      const advice = `A pedal on ${v.replace(/7$/, "")}: ${pedal} for ${n} bar${n > 1 ? "s" : ""}, opening to ${resolveTo} at the end and resolving to ${topName} at the top.`;
+      return result(kind, withRepeats(bars, opts.repeats ?? 1), true, advice, others, { choice });
+    }
+    case "last-bars": {
+      const n = opts.bars ?? 8;
+      const pass = lastPassBars(chart);
+      const fits = pass.length >= n;
+      const taken = pass.slice(-n).map((b, i, arr) => plainCopy(b, arr[i - 1]));
+      const { bars, turned } = turnBack(taken, tgt, meter, tritone);
+      const advice = fits
+        ? `The last ${n} bars of the form${turned ? `, with the last bar turned into ${turned} to lead back to ${topName}` : ", whose last bar already leads back to the top"}.`
+        : `The form is only ${pass.length} bars, shorter than ${n}: this plays all of it. Take ${Math.min(4, pass.length)} bars or a solo chorus instead.`;
+      return result(kind, withRepeats(bars, opts.repeats ?? 1), fits, advice, ["solo-chorus", ...others.filter((k) => k !== "solo-chorus")], { choice: { ...choice, bars: n } });
+    }
+    case "vamp": {
+      const given = opts.vamp ? ([...opts.vamp] as [string, string]) : null;
+      const pair = (given ?? suggestedVamp(tgt)).map((s) => formatChord(parseChord(s))) as [string, string];
+      const played = pair.map((s) => sub(s, tritone));
+      const n = opts.bars ?? 2;
+      const cells = n === 1 ? [played.join(" ")] : Array.from({ length: n }, (_, i) => played[i % 2]!);
+      const bars = n === 1 ? [barOf(played, meter)] : cells.map((c) => barOf([c], meter));
+      // A dominant of bar 1 may bring outside notes (its tensions); any other chord with two or more
+      // notes foreign to the key and to bar 1 pulls the band toward another key.
+      const clashes = played
+        .filter((s) => !dominantInto(s, tgt))
+        .map((s) => ({ s, foreign: foreignNotes(s, chart, tgt) }))
+        .filter((x) => x.foreign.length >= 2);
+      const fits = clashes.length === 0;
+      const better = suggestedVamp(tgt);
+      const advice = fits
+        ? `A two-chord vamp, ${played.join(" | ")}, ${opts.repeats && opts.repeats > 2 ? `${opts.repeats} times` : "until the cue"}, then ${topName} at the top.`
+        : `The vamp ${played.join(" | ")} clashes with ${topName} in bar 1: ${clashes.map((c) => `${c.s} brings ${c.foreign.join(", ")}`).join("; ")}, notes outside ${chart.key}. Try ${better.join(" | ")} or a ii–V into bar 1.`;
+      return result(kind, withRepeats(bars, opts.repeats ?? 2), fits, advice, others, { choice: { ...choice, vamp: pair }, vamp: pair });
+    }
+    case "solo-chorus": {
+      const choruses = opts.repeats ?? 1;
+      const form = chart.sections.flatMap((s) => s.bars.map((b) => stripMelody({ ...b, chords: b.chords.map((c) => ({ ...c })) })));
+      const labels: (string | null)[] = [];
+      chart.sections.forEach((s) => s.bars.forEach((_, i) => labels.push(i === 0 ? s.label : null)));
+      const { bars } = target ? turnBack(form, tgt, meter, tritone) : { bars: form };
+      const all = Array.from({ length: choruses }, () => bars).flat();
+      const advice = `A solo chorus: ${choruses > 1 ? `${choruses} times` : "once"} through the ${form.length}-bar form over the changes before the head comes in${chart.intro ? " (this tune also has a composed intro)" : ""}.`;
+      return result(kind, all, target !== null, target ? advice : "The form has no chords to solo over.", others, { choice, labels: Array.from({ length: choruses }, () => labels).flat() });
+    }
+    case "turnaround": {
+      const variant = opts.variant ?? "I-vi-ii-V";
+      const chords = turnaround(chart.key, variant, tritone);
+      const n = opts.bars ?? (meter.beats % 2 === 0 ? 2 : 4);
+      const bars = spread(chords, n, meter);
+      const advice = top.startsOnTonic
+        ? `A ${variant.replace(/-/g, "–")} turnaround, ${chords.join(" ")}, leading to ${topName} at the top.`
+        : `A ${variant.replace(/-/g, "–")} turnaround lands on ${parseKey(chart.key).tonic}, but this tune starts on ${topName} (${top.numeral}), not the tonic. A ii–V into ${topName} or a dominant pedal fits better.`;
+      return result(kind, withRepeats(bars, opts.repeats ?? 2), top.startsOnTonic, advice, others, { choice: { ...choice, variant } });
+    }
+    case "two-five": {
+      const pair = twoFiveInto(formatChord({ ...tgt, bass: null }), tritone);
+      const n = opts.bars ?? 2;
+      const bars = spread(pair, n, meter);
+      const advice = `${isMinorChord(tgt) ? "A minor iiø–V" : "A ii–V"} into ${topName}: ${pair.join(" | ")}.`;
+      return result(kind, withRepeats(bars, opts.repeats ?? 1), true, advice, others, { choice });
+    }
+    case "composed": {
+      if (!chart.intro) {
+        const advice = `This chart has no composed intro (an "Intro:" section in the chart text). ${top.startsOnTonic ? "It starts on the tonic, so a turnaround or a dominant pedal works." : `It starts on ${topName} (${top.numeral}), so a ii–V into bar 1 or a dominant pedal works.`}`;
+        return result(kind, [], false, advice, others.filter((k) => k !== "composed"), { choice });
+      }
+      const bars = chart.intro.bars.map((b) => ({ ...b, chords: b.chords.map((c) => ({ ...c })) }));
+      const advice = `The tune's own ${bars.length}-bar intro, as written${tritone ? " (tritone substitution is not applied to a composed intro)" : ""}.`;
+      return result(kind, withRepeats(bars, opts.repeats ?? 1), true, advice, others, { choice });
+    }
+  }
+}
+
+function stripMelody(b: Bar): Bar {
+  const out = { ...b };
+  delete out.melody;
+  return out;
+}
+
+/** Every kind of intro for this tune with default options and its fit, for an intro picker. */
+export function suggestIntros(chart: Chart): IntroResult[] {
+  return INTRO_KINDS.map((kind) => generateIntro(chart, { kind }));
+}

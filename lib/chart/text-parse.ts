@@ -1,0 +1,298 @@
+// Chart text → chart model. The format is described in docs/chart-text.md.
+// Two passes: metadata first (so `time:` may come anywhere), then sections, bars and melody lines.
+import { ChordSymbolError, formatChord, parseChord, readKey } from "@/lib/music";
+import { ChartSchema, type Bar, type Chart, type Meter, type Section } from "./model";
+import { scanBarLine, type BarToken } from "./text-scan";
+import { barQuarters, beatWords, noteQuarters, readMelodyNote } from "./melody";
+import { ChartTextError } from "./text-error";
+
+export { ChartTextError };
+
+export const METADATA_FIELDS = ["title", "composer", "key", "time", "tempo", "feel"] as const;
+type Field = (typeof METADATA_FIELDS)[number];
+
+const HEADER_RE = /^(\s*)([A-Za-z][\w '’&.\-]{0,60}?)\s*:(?!\|)(.*)$/;
+
+/** Where a comment starts: `#` at the start of a line or after a space, followed by a space or the end. */
+function stripComment(line: string): string {
+  if (/^\s*#/.test(line)) return "";
+  const m = /\s#(?=\s|$)/.exec(line);
+  return m ? line.slice(0, m.index) : line;
+}
+
+interface Meta {
+  title?: string;
+  composer?: string;
+  key?: string;
+  meter?: Meter;
+  tempo?: number | null;
+  feel?: string;
+}
+
+function readMeter(text: string): Meter | null {
+  const t = text.trim().toLowerCase();
+  if (t === "c" || t === "common") return { beats: 4, unit: 4 };
+  if (t === "cut" || t === "¢") return { beats: 2, unit: 2 };
+  const m = /^(\d{1,2})\s*\/\s*(\d{1,2})$/.exec(t);
+  if (!m) return null;
+  const beats = Number(m[1]);
+  const unit = Number(m[2]);
+  if (beats < 1 || beats > 16 || (unit !== 2 && unit !== 4 && unit !== 8)) return null;
+  return { beats, unit };
+}
+
+function readField(field: Field, value: string, line: number, column: number, meta: Meta): void {
+  const fail = (msg: string): never => {
+    throw new ChartTextError(line, column, msg);
+  };
+  switch (field) {
+    case "title":
+      if (!value) fail("The title is empty: write it after `title:`");
+      if (value.length > 200) fail("The title is too long (200 characters at most)");
+      meta.title = value;
+      return;
+    case "composer":
+      if (value.length > 200) fail("The composer line is too long (200 characters at most)");
+      meta.composer = value;
+      return;
+    case "key": {
+      const k = readKey(value);
+      if (!k) fail(`"${value}" is not a key: write a major key like Eb or F#, or a minor key like Cm`);
+      meta.key = k!.name;
+      return;
+    }
+    case "time": {
+      const m = readMeter(value);
+      if (!m) fail(`"${value}" is not a time signature we read: write it like 4/4, 3/4, 6/8 or 12/8 (up to 16 beats)`);
+      meta.meter = m!;
+      return;
+    }
+    case "tempo": {
+      if (!value) {
+        meta.tempo = null;
+        return;
+      }
+      const m = /^(\d{1,3})(?:\s*bpm)?$/i.exec(value);
+      const n = m ? Number(m[1]) : NaN;
+      if (!(n >= 20 && n <= 400)) fail(`"${value}" is not a tempo: write beats per minute between 20 and 400, like 160`);
+      meta.tempo = n;
+      return;
+    }
+    case "feel":
+      if (value.length > 60) fail("The feel is too long (60 characters at most)");
+      meta.feel = value;
+  }
+}
+
+interface PendingBar {
+  bar: Bar;
+  line: number;
+  column: number;
+  endingStart: number | null;
+  endingClose: boolean;
+}
+
+interface PendingSection {
+  label: string;
+  line: number;
+  column: number;
+  isIntro: boolean;
+  bars: PendingBar[];
+  /** Bars of the latest bar line, for a `melody:` line under it. */
+  lastLine: { bars: PendingBar[]; hasMelody: boolean } | null;
+}
+
+function buildBar(tok: Extract<BarToken, { kind: "bar" }>, meter: Meter, line: number): Bar {
+  const words = tok.words;
+  const bar: Bar = { chords: [], simile: false, repeatStart: tok.repeatStart, repeatEnd: tok.repeatEnd, ending: null };
+  if (tok.repeatTimes !== undefined) bar.repeatTimes = tok.repeatTimes;
+  if (words.length === 0) {
+    throw new ChartTextError(line, tok.column, "This bar is empty: write a chord, % to repeat the bar before, or N.C. for no chord");
+  }
+  if (words.some((w) => w.text === "%")) {
+    if (words.length > 1) throw new ChartTextError(line, words[0]!.column, "% stands alone in its bar: it repeats the whole bar before");
+    bar.simile = true;
+    return bar;
+  }
+  if (words[0]!.text === "/") {
+    throw new ChartTextError(line, words[0]!.column, "A bar can't start with /: write the chord first (a / holds the chord before it one more beat)");
+  }
+  const n = words.length;
+  const meterText = `${meter.beats}/${meter.unit}`;
+  if (n > meter.beats) {
+    throw new ChartTextError(line, words[meter.beats]!.column, `Too many chords for one bar: ${n} chords and slashes, but a ${meterText} bar has ${beatWords(meter.beats)}`);
+  }
+  if (meter.beats % n !== 0) {
+    throw new ChartTextError(line, words[0]!.column, `${n} chords and slashes can't share a ${meterText} bar evenly: write one per beat, holding chords with / (like "C / / G7")`);
+  }
+  const each = meter.beats / n;
+  words.forEach((w, i) => {
+    if (w.text === "/") {
+      bar.chords[bar.chords.length - 1]!.beats += each;
+      return;
+    }
+    let symbol: string;
+    try {
+      symbol = formatChord(parseChord(w.text));
+    } catch (e) {
+      if (e instanceof ChordSymbolError) throw new ChartTextError(line, w.column, e.message);
+      throw e;
+    }
+    bar.chords.push({ symbol, beat: i * each, beats: each });
+  });
+  return bar;
+}
+
+/** Ending runs: a `[n` lasts until a `:|`, a `]`, the next `[n` or `|:`, or the end of the section. */
+function settleEndings(sec: PendingSection): void {
+  let active: number | null = null;
+  const runs: { n: number; last: PendingBar }[] = [];
+  for (const p of sec.bars) {
+    if (p.bar.repeatStart) active = null;
+    if (p.endingStart !== null) {
+      const n = p.endingStart;
+      if (n > 1 && !runs.some((r) => r.n === n - 1)) {
+        throw new ChartTextError(p.line, p.column, `Ending [${n} comes without an ending [${n - 1} before it in this section`);
+      }
+      active = n;
+      runs.push({ n, last: p });
+    }
+    p.bar.ending = active;
+    if (active !== null) runs[runs.length - 1]!.last = p;
+    if (p.bar.repeatEnd || p.endingClose) active = null;
+  }
+  for (const r of runs) {
+    if (runs.some((o) => o.n === r.n + 1) && !r.last.bar.repeatEnd) {
+      throw new ChartTextError(r.last.line, r.last.column, `Ending [${r.n} must end with :| so the band goes back for the next time through`);
+    }
+  }
+}
+
+function readMelodyLine(text: string, offset: number, line: number, sec: PendingSection | null, meter: Meter): void {
+  if (!sec || !sec.lastLine) throw new ChartTextError(line, offset + 1, "A melody line goes right under the bar line it belongs to");
+  if (sec.lastLine.hasMelody) throw new ChartTextError(line, offset + 1, "This bar line already has a melody line");
+  sec.lastLine.hasMelody = true;
+  const segments: { text: string; column: number }[] = [];
+  let start = 0;
+  const body = text.replace(/^\s*\|/, (m) => " ".repeat(m.length));
+  for (let i = 0; i <= body.length; i++) {
+    if (i === body.length || body[i] === "|") {
+      segments.push({ text: body.slice(start, i), column: offset + start + 1 });
+      start = i + 1;
+    }
+  }
+  if (segments.length > 1 && segments[segments.length - 1]!.text.trim() === "") segments.pop();
+  const targets = sec.lastLine.bars;
+  if (segments.length > targets.length) {
+    throw new ChartTextError(line, segments[targets.length]!.column, `This melody line has ${segments.length} bars but the bar line above has ${targets.length}`);
+  }
+  const need = barQuarters(meter);
+  segments.forEach((seg, i) => {
+    if (seg.text.trim() === "") return;
+    const notes = [];
+    let total = 0;
+    for (const m of seg.text.matchAll(/\S+/g)) {
+      const note = readMelodyNote(m[0]);
+      if (!note) {
+        throw new ChartTextError(line, seg.column + m.index, `"${m[0]}" is not a melody note: write pitch and length like Eb5:q, G4:h. or r:8 for a rest`);
+      }
+      notes.push(note);
+      total += noteQuarters(note);
+    }
+    if (Math.abs(total - need) > 1e-9) {
+      throw new ChartTextError(line, seg.column, `The melody in this bar lasts ${beatWords(total)} (in quarter notes) but the bar holds ${beatWords(need)}: fill it with rests like r:q`);
+    }
+    targets[i]!.bar.melody = notes;
+  });
+}
+
+export function parseChartText(text: string): Chart {
+  const lines = text.replace(/\r\n?/g, "\n").split("\n").map(stripComment);
+  const meta: Meta = {};
+  const seen = new Map<Field, number>();
+  lines.forEach((raw, i) => {
+    const m = HEADER_RE.exec(raw);
+    if (!m) return;
+    const name = m[2]!.trim().toLowerCase() as Field;
+    if (!(METADATA_FIELDS as readonly string[]).includes(name)) return;
+    if (seen.has(name)) throw new ChartTextError(i + 1, m[1]!.length + 1, `${name} is given twice (first on line ${seen.get(name)})`);
+    seen.set(name, i + 1);
+    readField(name, m[3]!.trim(), i + 1, m[1]!.length + 1, meta);
+  });
+  const meter = meta.meter ?? { beats: 4, unit: 4 };
+
+  const sections: PendingSection[] = [];
+  let current: PendingSection | null = null;
+  const openSection = (label: string, line: number, column: number): PendingSection => {
+    const isIntro = label.toLowerCase() === "intro";
+    if (isIntro && sections.some((s) => s.isIntro)) throw new ChartTextError(line, column, "The chart already has an Intro section");
+    if (label.length > 40) throw new ChartTextError(line, column, "A section name is 40 characters at most");
+    const sec: PendingSection = { label: isIntro ? "Intro" : label, line, column, isIntro, bars: [], lastLine: null };
+    sections.push(sec);
+    return sec;
+  };
+  const readBars = (body: string, offset: number, line: number) => {
+    current ??= openSection("A", line, offset + 1);
+    const lineBars: PendingBar[] = [];
+    for (const tok of scanBarLine(body, offset, line)) {
+      if (tok.kind !== "bar") continue;
+      const bar = buildBar(tok, meter, line);
+      const p: PendingBar = { bar, line, column: tok.column, endingStart: tok.ending, endingClose: tok.endingClose };
+      if (bar.simile && current.bars.length === 0) throw new ChartTextError(line, tok.column, "% repeats the bar before, but this section has no bar before it");
+      current.bars.push(p);
+      lineBars.push(p);
+    }
+    current.lastLine = { bars: lineBars, hasMelody: false };
+  };
+
+  lines.forEach((raw, i) => {
+    const line = i + 1;
+    if (raw.trim() === "") return;
+    const m = HEADER_RE.exec(raw);
+    if (m) {
+      const name = m[2]!.trim();
+      const lower = name.toLowerCase();
+      const column = m[1]!.length + 1;
+      const rest = m[3]!;
+      const restOffset = raw.length - rest.length;
+      if ((METADATA_FIELDS as readonly string[]).includes(lower)) return;
+      if (lower === "melody") return readMelodyLine(rest, restOffset, line, current, meter);
+      if (rest.trim() !== "" && !/^\s*[|[]/.test(rest)) {
+        throw new ChartTextError(line, column, `"${name}" is not a field we know (the fields are ${METADATA_FIELDS.join(", ")}); a section name stands alone on its line, like "B:"`);
+      }
+      current = openSection(name, line, column);
+      if (rest.trim() !== "") readBars(rest, restOffset, line);
+      return;
+    }
+    readBars(raw, 0, line);
+  });
+
+  if (meta.title === undefined) throw new ChartTextError(1, 1, "The chart needs a title: add a line like `title: Night Bus`");
+  if (meta.key === undefined) throw new ChartTextError(1, 1, "The chart needs a concert key: add a line like `key: Eb` (or `key: Cm` for minor)");
+  for (const s of sections) {
+    if (s.bars.length === 0) throw new ChartTextError(s.line, s.column, `Section "${s.label}" has no bars`);
+    settleEndings(s);
+  }
+  const toSection = (s: PendingSection): Section => ({ label: s.label, bars: s.bars.map((p) => p.bar) });
+  const intro = sections.find((s) => s.isIntro);
+  const form = sections.filter((s) => !s.isIntro);
+  if (form.length === 0) throw new ChartTextError(lines.length, 1, "The chart has no bars yet: add a section like `A:` followed by a bar line like `| Cmaj7 | Dm7 G7 |`");
+
+  const chart = {
+    title: meta.title,
+    composer: meta.composer ?? "",
+    key: meta.key,
+    meter,
+    tempo: meta.tempo ?? null,
+    feel: meta.feel ?? "",
+    intro: intro ? toSection(intro) : null,
+    sections: form.map(toSection),
+  };
+  const checked = ChartSchema.safeParse(chart);
+  if (!checked.success) {
+    const issue = checked.error.issues[0]!;
+    const where = issue.path[0] === "sections" && typeof issue.path[1] === "number" ? form[issue.path[1]] : undefined;
+    throw new ChartTextError(where?.line ?? 1, where?.column ?? 1, `The chart is too big for one chart (${issue.message}): at most 64 sections of 512 bars and 16 chords a bar`);
+  }
+  return checked.data;
+}

@@ -1,0 +1,163 @@
+// Performance bars → systems → pages for one screen or sheet. Pure and deterministic: the same
+// arrangement and options give the same pages, so every device in the band reads the same turns.
+import type { Arrangement, PerformanceBar } from "@/lib/chart/model";
+import type { ChartLayout, Clef, LayoutOptions, Page, PlacedBar, System } from "./types";
+import { minBarWidth, placeChords } from "./bars";
+import { keyAccidentalCount } from "./keys";
+import { BAR_PAD_END, BAR_PAD_START, MARGIN, STAFF_HEIGHT, openingWidth } from "./metrics";
+import { clefFor } from "./part-label";
+
+const TOP_STRIP = 24; // the part label in the corner
+const HEADER_HEIGHT = 72;
+const BOTTOM_MARGIN = 10;
+const LABEL_ROW = 24;
+const BELOW_STAFF = 18;
+
+export function defaultZoom(width: number): number {
+  return width >= 1000 ? 1.3 : width >= 700 ? 1.15 : 1;
+}
+
+export function defaultBarsPerLine(logicalWidth: number): number {
+  return logicalWidth >= 640 ? 4 : logicalWidth >= 470 ? 3 : 2;
+}
+
+interface Line {
+  bars: PerformanceBar[];
+  /** Closed because the next bar would not fit (then the line is stretched to the full width). */
+  full: boolean;
+}
+
+function startsSection(bar: PerformanceBar, prev: PerformanceBar | undefined): boolean {
+  return !!prev && (bar.section !== null || bar.part !== prev.part);
+}
+
+function breakLines(bars: PerformanceBar[], ctx: LineContext): Line[] {
+  const lines: Line[] = [];
+  let current: PerformanceBar[] = [];
+  let used = 0;
+  const widthOf = (bar: PerformanceBar, firstLine: boolean) =>
+    Math.max(ctx.nominal(firstLine), minBarWidth(bar, ctx.beats, ctx.fontSize));
+  bars.forEach((bar, i) => {
+    const firstLine = lines.length === 0;
+    const need = widthOf(bar, firstLine) + (current.length === 0 ? ctx.opening(firstLine) : 0);
+    const section = startsSection(bar, bars[i - 1]);
+    if (current.length > 0 && (section || current.length >= ctx.barsPerLine || used + need > ctx.avail + 0.001)) {
+      lines.push({ bars: current, full: !section && current.length < ctx.barsPerLine });
+      current = [];
+      used = widthOf(bar, false) + ctx.opening(false);
+    } else {
+      used += need;
+    }
+    current.push(bar);
+  });
+  if (current.length) lines.push({ bars: current, full: false });
+  return lines;
+}
+
+interface LineContext {
+  avail: number;
+  nominal: (firstLine: boolean) => number;
+  barsPerLine: number;
+  beats: number;
+  fontSize: number;
+  opening: (firstLine: boolean) => number;
+  firstIntroIndex: number | null;
+}
+
+function placeLine(line: Line, lineIndex: number, ctx: LineContext): PlacedBar[] {
+  const opening = ctx.opening(lineIndex === 0);
+  const nominal = ctx.nominal(lineIndex === 0);
+  const widths = line.bars.map((b) => Math.min(ctx.avail - opening, Math.max(nominal, minBarWidth(b, ctx.beats, ctx.fontSize))));
+  const total = widths.reduce((a, w) => a + w, 0) + opening;
+  if (line.full && total < ctx.avail) {
+    const extra = (ctx.avail - total) / widths.length;
+    widths.forEach((w, i) => (widths[i] = w + extra));
+  }
+  let x = MARGIN;
+  return line.bars.map((bar, i) => {
+    const first = i === 0;
+    const width = (widths[i] ?? nominal) + (first ? opening : 0);
+    const noteX = x + (first ? opening : 0) + BAR_PAD_START;
+    const noteWidth = x + width - BAR_PAD_END - noteX;
+    const { boxes } = placeChords(bar, ctx.beats, ctx.fontSize, noteX, noteWidth);
+    const prev = line.bars[i - 1];
+    const next = line.bars[i + 1];
+    const placed: PlacedBar = {
+      bar,
+      x,
+      width,
+      noteX,
+      showClef: first,
+      showKey: first,
+      showTime: first && lineIndex === 0,
+      label: bar.section ?? (bar.index === ctx.firstIntroIndex ? "Intro" : null),
+      intro: bar.part === "intro",
+      chords: boxes,
+      endingStart: bar.ending !== null && (!prev || prev.ending !== bar.ending),
+      endingEnd: bar.ending !== null && (!next || next.ending !== bar.ending),
+    };
+    x += width;
+    return placed;
+  });
+}
+
+export function systemHeight(fontSize: number): number {
+  return LABEL_ROW + Math.round(fontSize * 1.35) + STAFF_HEIGHT + BELOW_STAFF;
+}
+
+export function layoutChart(arrangement: Arrangement, options: LayoutOptions): ChartLayout {
+  const zoom = options.zoom ?? defaultZoom(options.width);
+  const width = Math.max(200, options.width / zoom);
+  const height = Math.max(200, options.height / zoom);
+  const fontSize = options.chordFontSize ?? (width < 480 ? 21 : 24);
+  const barsPerLine = Math.max(1, Math.floor(options.barsPerLine ?? defaultBarsPerLine(width)));
+  const clef: Clef = options.clef ?? clefFor(arrangement.instrument);
+  const keyAcc = options.keyAccidentals ?? keyAccidentalCount(arrangement.writtenKey);
+  const avail = width - 2 * MARGIN;
+  const opening = (firstLine: boolean) => openingWidth(keyAcc, firstLine);
+  const ctx: LineContext = {
+    avail,
+    nominal: (firstLine) => (avail - opening(firstLine)) / barsPerLine,
+    barsPerLine,
+    beats: arrangement.meter.beats,
+    fontSize,
+    opening,
+    firstIntroIndex: arrangement.bars.find((b) => b.part === "intro")?.index ?? null,
+  };
+  const lines = breakLines(arrangement.bars, ctx).map((line, i) => placeLine(line, i, ctx));
+  const pages = paginate(lines, { width, height, zoom, fontSize, header: options.header ?? true });
+  return { pages, meter: arrangement.meter, clef, chordFontSize: fontSize, barsPerLine };
+}
+
+interface PageGeometry {
+  width: number;
+  height: number;
+  zoom: number;
+  fontSize: number;
+  header: boolean;
+}
+
+function paginate(lines: PlacedBar[][], g: PageGeometry): Page[] {
+  const slot = systemHeight(g.fontSize);
+  const staffOffset = LABEL_ROW + Math.round(g.fontSize * 1.35);
+  const pages: Page[] = [];
+  let next = 0;
+  do {
+    const header = g.header && pages.length === 0 ? { y: TOP_STRIP, height: HEADER_HEIGHT } : null;
+    const top = TOP_STRIP + (header ? HEADER_HEIGHT : 0);
+    const room = g.height - top - BOTTOM_MARGIN;
+    const rows = Math.max(1, Math.floor(room / slot));
+    // Spread spare room between systems on every page alike, so turns don't shift the lines.
+    const pitch = slot + Math.min(Math.max(0, (room - rows * slot) / rows), slot * 0.25);
+    const systems: System[] = lines.slice(next, next + rows).map((bars, i) => {
+      const y = top + i * pitch;
+      const staffY = y + staffOffset;
+      return { index: next + i, y, staffY, height: slot, bars };
+    });
+    next += rows;
+    const halfIndex = Math.ceil(systems.length / 2);
+    const halfY = systems[halfIndex]?.y ?? g.height;
+    pages.push({ number: pages.length + 1, width: g.width, height: g.height, zoom: g.zoom, systems, header, halfIndex, halfY });
+  } while (next < lines.length);
+  return pages;
+}

@@ -1,0 +1,89 @@
+// Deterministic size estimates used by the layout, so the same chart always gives the same pages
+// and chord symbols never collide. Estimates err wide: a drawn symbol is never wider than its box.
+import { chordDisplayParts } from "@/lib/music/chord";
+
+/** Staff space in page units (VexFlow's default), and the heights that make up a system's slot. */
+export const STAFF_SPACE = 10;
+export const STAFF_HEIGHT = 4 * STAFF_SPACE;
+export const MARGIN = 16;
+/** Gap between two chord symbols in one bar, and how far a bar's last symbol may reach past its end. */
+export const CHORD_GAP = 8;
+export const CHORD_END_SLACK = 4;
+export const BAR_PAD_START = 10;
+export const BAR_PAD_END = 8;
+export const MIN_BEAT_SPACE = 20;
+/** Superscript size relative to the chord font. */
+export const SUPERSCRIPT_SCALE = 0.62;
+
+export interface SymbolParts {
+  root: string;
+  accidental: string;
+  quality: string;
+  superscript: string;
+  bass: string;
+}
+
+/**
+ * A symbol split for drawing: root, accidental, quality at full size; extensions and alterations
+ * raised and smaller; an optional slash bass. "N.C." and anything unreadable stay whole in `root`.
+ */
+export function splitSymbol(symbol: string): SymbolParts {
+  const m = /^([A-G])([b#♭♯]?)(maj|min|dim|aug|sus|m|-|ø|°|o|\+|Δ)?([^/]*)(?:\/(.+))?$/.exec(symbol.trim());
+  if (!m) return { root: symbol, accidental: "", quality: "", superscript: "", bass: "" };
+  const [, root = "", acc = "", qual = "", rest = "", bass = ""] = m;
+  // "sus" and "maj" carry their number with them in the raised part.
+  const quality = qual === "sus" || qual === "maj" ? "" : qual;
+  const superscript = (qual === "sus" || qual === "maj" ? qual : "") + rest;
+  return { root, accidental: prettyAccidental(acc), quality, superscript: prettyAlterations(superscript), bass: prettyAccidentalNote(bass) };
+}
+
+function prettyAccidental(a: string): string {
+  return a === "b" ? "♭" : a === "#" ? "♯" : a;
+}
+
+function prettyAccidentalNote(note: string): string {
+  return note.replace(/^([A-G])b/, "$1♭").replace(/^([A-G])#/, "$1♯");
+}
+
+/** b9 → ♭9, #11 → ♯11 inside extensions. */
+export function prettyAlterations(s: string): string {
+  return s.replace(/b(?=\d)/g, "♭").replace(/#(?=\d)/g, "♯");
+}
+
+/** Width of one character in em, by class: caps, narrow marks, digits and lower case, accidentals. */
+function charEm(ch: string): number {
+  if (/[A-Z]/.test(ch)) return 0.76;
+  if (/[mw]/.test(ch)) return 0.86;
+  if (/[il1.()\/|]/.test(ch)) return 0.4;
+  if (/[♭♯°ø+Δ-]/.test(ch)) return 0.62;
+  return 0.6;
+}
+
+export function textWidth(text: string, fontSize: number): number {
+  let em = 0;
+  for (const ch of text) em += charEm(ch);
+  return em * fontSize;
+}
+
+/** The parts as drawn: the music core's split, or our own when the core cannot read the symbol. */
+export function displayParts(symbol: string): SymbolParts {
+  try {
+    return chordDisplayParts(symbol);
+  } catch {
+    return splitSymbol(symbol);
+  }
+}
+
+/** Estimated drawn width of a chord symbol at a font size, following its display parts. */
+export function estimateSymbolWidth(symbol: string, fontSize: number): number {
+  const p = displayParts(symbol);
+  const main = textWidth(p.root + p.accidental + p.quality, fontSize);
+  const sup = textWidth(p.superscript, fontSize * SUPERSCRIPT_SCALE);
+  const bass = p.bass ? textWidth("/" + p.bass, fontSize) : 0;
+  return Math.ceil(main + sup + bass + (p.superscript ? 2 : 0));
+}
+
+/** Width of a line's opening: clef, key signature, and the time signature on the chart's first line. */
+export function openingWidth(keyAccidentals: number, withTime: boolean, withClef = true): number {
+  return (withClef ? 36 : 0) + (keyAccidentals > 0 ? keyAccidentals * 11 + 6 : 0) + (withTime ? 26 : 0);
+}

@@ -1,0 +1,89 @@
+// Shapes of a laid-out chart: pages of systems of bars, every position in page units (CSS px at zoom 1).
+// The drawing code reads these and never decides where anything goes.
+import type { Meter, PerformanceBar } from "@/lib/chart/model";
+
+export type Clef = "treble" | "bass";
+
+export interface LayoutOptions {
+  /** Screen (or sheet) size in CSS px. */
+  width: number;
+  height: number;
+  /** Bars a line when nothing forces fewer; default 4 on a wide screen, fewer on a narrow one. */
+  barsPerLine?: number;
+  /** CSS px per page unit; default grows with the screen so symbols stay large at arm's length. */
+  zoom?: number;
+  /** Chord-symbol font size in page units. */
+  chordFontSize?: number;
+  clef?: Clef;
+  /** Sharps or flats in the written key signature (0–7), for the width of a line's opening. */
+  keyAccidentals?: number;
+  /** Room for the title block on page 1; default true. */
+  header?: boolean;
+  /** The chart's title block text; lines shown on page 1. */
+  title?: string;
+}
+
+export interface ChordBox {
+  symbol: string;
+  beat: number;
+  beats: number;
+  /** Left edge in page units, and the estimated width of the drawn symbol. */
+  x: number;
+  width: number;
+  /** Font size to draw at (smaller only when a crowded bar had to shrink). */
+  size: number;
+}
+
+export interface PlacedBar {
+  bar: PerformanceBar;
+  x: number;
+  width: number;
+  /** Where the beats start (after clef, key and time signature on a line's first bar). */
+  noteX: number;
+  showClef: boolean;
+  showKey: boolean;
+  showTime: boolean;
+  /** Boxed rehearsal label drawn at this bar ("A", "Bridge"), or null. */
+  label: string | null;
+  /** Bar belongs to the intro (labelled as such). */
+  intro: boolean;
+  chords: ChordBox[];
+  /** This bar opens / closes an ending bracket (1st, 2nd…) on this line. */
+  endingStart: boolean;
+  endingEnd: boolean;
+}
+
+export interface System {
+  index: number;
+  /** Top of the system's slot; the staff's top line is at `staffY`. */
+  y: number;
+  staffY: number;
+  height: number;
+  bars: PlacedBar[];
+}
+
+export interface PageHeader {
+  y: number;
+  height: number;
+}
+
+export interface Page {
+  /** 1-based. */
+  number: number;
+  width: number;
+  height: number;
+  zoom: number;
+  systems: System[];
+  header: PageHeader | null;
+  /** Systems before this index form the top half (for half-page turns); `halfY` is where the bottom half begins. */
+  halfIndex: number;
+  halfY: number;
+}
+
+export interface ChartLayout {
+  pages: Page[];
+  meter: Meter;
+  clef: Clef;
+  chordFontSize: number;
+  barsPerLine: number;
+}

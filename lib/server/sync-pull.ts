@@ -1,0 +1,195 @@
+import "server-only";
+// The pull side of delta sync: one page of the band's change feed, each entity once at its latest
+// state, filtered by what the caller may see. Stored JSON text (chart bodies, intros, marks) is spliced
+// into the response string as it is, never parsed and re-serialised: that is what keeps a pull cheap.
+import { createHash } from "node:crypto";
+import type { Kysely } from "kysely";
+import type { Database, Membership } from "@/db/schema";
+import type { PullQuery } from "@/lib/offline/protocol";
+import { requireMember, type Actor } from "./access";
+import { AppError } from "./errors";
+import { sharedSetlistIds } from "./shares";
+import { loadAnnotationFeedRows, loadSetlistFeedRows, type FeedRow } from "./setlist-feed";
+import { loadAttachments, loadCharts, type Loaded } from "./sync-rows";
+
+const PULL_ENTITIES = new Set(["chart", "setlist", "annotation", "attachment"]);
+
+/** What a sub may see: the set lists shared with them (live shares only) and the charts on them. */
+interface Visible {
+  setlists: Set<string>;
+  charts: Set<string>;
+}
+
+async function visibleToSub(db: Kysely<Database>, bandId: string, userId: string, now: Date): Promise<Visible> {
+  const setlists = new Set(await sharedSetlistIds(db, bandId, userId, now));
+  const charts = new Set<string>();
+  if (setlists.size > 0) {
+    const entries = await db.selectFrom("setlist_entries").select("chart_id").where("setlist_id", "in", [...setlists]).execute();
+    for (const e of entries) charts.add(e.chart_id);
+  }
+  return { setlists, charts };
+}
+
+function scopeOf(m: Membership, visible: Visible | null): string {
+  if (!visible) return m.role;
+  const h = createHash("sha256");
+  for (const id of [...visible.setlists].sort()) h.update(`s${id};`);
+  for (const id of [...visible.charts].sort()) h.update(`c${id};`);
+  return `sub:${h.digest("base64url").slice(0, 22)}`;
+}
+
+async function feedPage(db: Kysely<Database>, bandId: string, userId: string, since: number, limit: number) {
+  return db
+    .selectFrom("changes as c")
+    .select(["c.seq", "c.entity", "c.entity_id", "c.op", "c.user_id"])
+    .where("c.band_id", "=", bandId)
+    .where("c.seq", ">", since)
+    .where((eb) => eb.or([eb("c.user_id", "is", null), eb("c.user_id", "=", userId)]))
+    .where((eb) =>
+      eb.not(
+        eb.exists(
+          eb
+            .selectFrom("changes as d")
+            .select("d.seq")
+            .whereRef("d.entity", "=", "c.entity")
+            .whereRef("d.entity_id", "=", "c.entity_id")
+            .whereRef("d.seq", ">", "c.seq")
+            .whereRef("d.band_id", "=", "c.band_id")
+            .where((w) => w.or([w("d.user_id", "is", null), w("d.user_id", "=", userId)])),
+        ),
+      ),
+    )
+    .orderBy("c.seq")
+    .limit(limit + 1)
+    .execute();
+}
+
+async function countRemaining(db: Kysely<Database>, bandId: string, userId: string, since: number): Promise<number> {
+  const r = await db
+    .selectFrom("changes as c")
+    .select((eb) => eb.fn.count<number>("c.seq").as("n"))
+    .where("c.band_id", "=", bandId)
+    .where("c.seq", ">", since)
+    .where("c.entity", "in", [...PULL_ENTITIES])
+    .where((eb) => eb.or([eb("c.user_id", "is", null), eb("c.user_id", "=", userId)]))
+    .where((eb) =>
+      eb.not(
+        eb.exists(
+          eb
+            .selectFrom("changes as d")
+            .select("d.seq")
+            .whereRef("d.entity", "=", "c.entity")
+            .whereRef("d.entity_id", "=", "c.entity_id")
+            .whereRef("d.seq", ">", "c.seq")
+            .whereRef("d.band_id", "=", "c.band_id")
+            .where((w) => w.or([w("d.user_id", "is", null), w("d.user_id", "=", userId)])),
+        ),
+      ),
+    )
+    .executeTakeFirst();
+  return Number(r?.n ?? 0);
+}
+
+async function rosterJson(db: Kysely<Database>, bandId: string): Promise<string> {
+  const rows = await db
+    .selectFrom("memberships as m")
+    .innerJoin("users as u", "u.id", "m.user_id")
+    .select(["m.user_id", "u.name", "u.email", "m.role", "m.instrument", "m.expires_at"])
+    .where("m.band_id", "=", bandId)
+    .orderBy("u.name")
+    .execute();
+  return JSON.stringify(
+    rows.map((r) => ({ userId: r.user_id, name: r.name, email: r.email, role: r.role, instrument: r.instrument, expiresAt: r.expires_at })),
+  );
+}
+
+/** Deletes for everything in the band a sub can no longer see (their share ended or changed). */
+async function subRetractions(db: Kysely<Database>, bandId: string, visible: Visible): Promise<string[]> {
+  const out: string[] = [];
+  const charts = await db.selectFrom("charts").select("id").where("band_id", "=", bandId).execute();
+  for (const c of charts) if (!visible.charts.has(c.id)) out.push(deleteJson("chart", c.id));
+  const lists = await db.selectFrom("setlists").select("id").where("band_id", "=", bandId).execute();
+  for (const l of lists) if (!visible.setlists.has(l.id)) out.push(deleteJson("setlist", l.id));
+  return out;
+}
+
+function byId<T>(rows: FeedRow<T>[]): Map<string, FeedRow<T>> {
+  return new Map(rows.map((r) => [r.id, r]));
+}
+
+function deleteJson(entity: string, id: string): string {
+  return `{"entity":${JSON.stringify(entity)},"id":${JSON.stringify(id)},"op":"delete"}`;
+}
+
+function upsertJson(entity: string, id: string, data: string): string {
+  return `{"entity":${JSON.stringify(entity)},"id":${JSON.stringify(id)},"op":"upsert","data":${data}}`;
+}
+
+/**
+ * One page of the feed as JSON text (a `PullResponse`). Throws 404 for outsiders and subs whose
+ * access ended, which tells the device to delete the band's data.
+ */
+export async function pullChanges(db: Kysely<Database>, actor: Actor | null, bandId: string, q: PullQuery, now = new Date()): Promise<string> {
+  const m = await requireMember(db, actor, bandId, "belong");
+  const userId = m.user_id;
+  const band = await db.selectFrom("bands").select(["id", "name"]).where("id", "=", bandId).executeTakeFirst();
+  if (!band) throw new AppError("not_found", "That band was not found.");
+  const visible = m.role === "sub" ? await visibleToSub(db, bandId, userId, now) : null;
+  const scope = scopeOf(m, visible);
+  const rescoped = q.scope !== undefined && q.scope !== scope;
+  const since = rescoped ? 0 : q.since;
+
+  const rows = await feedPage(db, bandId, userId, since, q.limit);
+  const more = rows.length > q.limit;
+  const page = more ? rows.slice(0, q.limit) : rows;
+  const seq = page.length > 0 ? page[page.length - 1]!.seq : since;
+
+  const ids: Record<string, string[]> = { chart: [], setlist: [], annotation: [], attachment: [] };
+  const retract = new Set<number>();
+  const picked = new Set<number>();
+  let membershipChanged = false;
+  for (const r of page) {
+    if (r.entity === "membership") membershipChanged = true;
+    if (!PULL_ENTITIES.has(r.entity)) continue;
+    if (visible && r.entity === "chart" && !visible.charts.has(r.entity_id)) {
+      // A change addressed to this sub about a chart they can no longer see: take it off the device.
+      if (r.user_id === userId) retract.add(r.seq);
+      continue;
+    }
+    ids[r.entity]!.push(r.entity_id);
+    picked.add(r.seq);
+  }
+  const charts = await loadCharts(db, bandId, ids.chart!);
+  const attachments = await loadAttachments(db, bandId, ids.attachment!);
+  // Set lists and marks come from their own module, which knows what a sub may see of them.
+  const setlists = byId(await loadSetlistFeedRows(db, m, ids.setlist!, now));
+  const marks = byId(await loadAnnotationFeedRows(db, m, ids.annotation!));
+
+  const changes: string[] = rescoped && visible ? await subRetractions(db, bandId, visible) : [];
+  for (const r of page) {
+    if (retract.has(r.seq)) changes.push(deleteJson(r.entity, r.entity_id));
+    if (!picked.has(r.seq)) continue;
+    if (r.entity === "chart" || r.entity === "attachment") {
+      const row = (r.entity === "chart" ? charts : attachments).get(r.entity_id);
+      if (visible && row?.chartId && !visible.charts.has(row.chartId)) continue;
+      changes.push(row ? upsertJson(r.entity, r.entity_id, row.json) : deleteJson(r.entity, r.entity_id));
+      continue;
+    }
+    const feed = (r.entity === "setlist" ? setlists : marks).get(r.entity_id);
+    if (!feed) continue;
+    if (feed.op === "delete") changes.push(deleteJson(r.entity, r.entity_id));
+    else if (!(visible && r.entity === "annotation" && !visible.charts.has((feed.data as { chartId: string }).chartId))) {
+      changes.push(upsertJson(r.entity, r.entity_id, JSON.stringify(feed.data)));
+    }
+  }
+
+  const total = q.count === "1" ? (visible ? visible.charts.size + visible.setlists.size : await countRemaining(db, bandId, userId, since)) : undefined;
+  const withRoster = m.role === "leader" && (since === 0 || membershipChanged);
+  const membership = { bandId, role: m.role, instrument: m.instrument, expiresAt: m.expires_at };
+  let out = `{"seq":${seq},"more":${more},"scope":${JSON.stringify(scope)}`;
+  if (total !== undefined) out += `,"total":${total}`;
+  out += `,"band":${JSON.stringify({ id: band.id, name: band.name })},"membership":${JSON.stringify(membership)}`;
+  if (withRoster) out += `,"members":${await rosterJson(db, bandId)}`;
+  out += `,"changes":[${changes.join(",")}]}`;
+  return out;
+}

@@ -1,0 +1,91 @@
+import "server-only";
+// Rows of the sync feed as JSON text in the wire shapes of lib/offline/protocol.ts.
+// Stored JSON columns are spliced in unparsed; only short scalar fields go through JSON.stringify.
+import type { Kysely } from "kysely";
+import type { Database } from "@/db/schema";
+
+/** How many of a chart's latest revisions travel with it (the history list on the device). */
+export const HISTORY_LIMIT = 10;
+
+export interface LoadedRow {
+  json: string;
+  /** The chart a row hangs off, for filtering what a sub may see. */
+  chartId?: string;
+}
+export type Loaded = Map<string, LoadedRow>;
+
+const s = JSON.stringify;
+
+/** Stored JSON text (written by the use cases with JSON.stringify), or `null` when the column is empty. */
+function splice(text: string | null): string {
+  if (text === null || text === "") return "null";
+  return text;
+}
+
+export async function loadCharts(db: Kysely<Database>, bandId: string, ids: string[]): Promise<Loaded> {
+  const out: Loaded = new Map();
+  if (ids.length === 0) return out;
+  const rows = await db
+    .selectFrom("charts as c")
+    .leftJoin("users as u", "u.id", "c.updated_by")
+    .select([
+      "c.id", "c.band_id", "c.title", "c.composer", "c.concert_key", "c.meter", "c.tempo", "c.feel", "c.body_json",
+      "c.source_text", "c.revision", "c.updated_at", "c.updated_by", "c.deleted_at", "u.name as updated_by_name",
+    ])
+    .where("c.band_id", "=", bandId)
+    .where("c.id", "in", ids)
+    .where("c.deleted_at", "is", null)
+    .execute();
+  if (rows.length === 0) return out;
+  const revs = await db
+    .selectFrom("chart_revisions as r")
+    .innerJoin("charts as c", "c.id", "r.chart_id")
+    .leftJoin("users as u", "u.id", "r.author_id")
+    .select(["r.chart_id", "r.revision", "r.title", "r.message", "r.created_at", "r.source_text", "r.meta_json", "u.name as author_name"])
+    .where("r.chart_id", "in", rows.map((r) => r.id))
+    .where((eb) => eb("r.revision", ">", eb(eb.ref("c.revision"), "-", HISTORY_LIMIT)))
+    .orderBy("r.chart_id")
+    .orderBy("r.revision", "desc")
+    .execute();
+  const history = new Map<string, string[]>();
+  for (const r of revs) {
+    const list = history.get(r.chart_id) ?? [];
+    list.push(
+      `{"revision":${r.revision},"title":${s(r.title)},"message":${s(r.message)},"authorName":${s(r.author_name ?? "")},` +
+        `"createdAt":${s(r.created_at)},"sourceText":${s(r.source_text)},"meta":${splice(r.meta_json)}}`,
+    );
+    history.set(r.chart_id, list);
+  }
+  for (const c of rows) {
+    out.set(c.id, {
+      json:
+        `{"id":${s(c.id)},"bandId":${s(c.band_id)},"title":${s(c.title)},"composer":${s(c.composer)},` +
+        `"concertKey":${s(c.concert_key)},"meter":${s(c.meter)},"tempo":${c.tempo === null ? "null" : Number(c.tempo)},` +
+        `"feel":${s(c.feel)},"revision":${Number(c.revision)},"updatedAt":${s(c.updated_at)},"updatedBy":${s(c.updated_by)},` +
+        `"updatedByName":${s(c.updated_by_name ?? "")},"sourceText":${s(c.source_text)},` +
+        `"history":[${(history.get(c.id) ?? []).join(",")}],"body":${splice(c.body_json)}}`,
+    });
+  }
+  return out;
+}
+
+export async function loadAttachments(db: Kysely<Database>, bandId: string, ids: string[]): Promise<Loaded> {
+  const out: Loaded = new Map();
+  if (ids.length === 0) return out;
+  const rows = await db
+    .selectFrom("attachments")
+    .selectAll()
+    .where("band_id", "=", bandId)
+    .where("id", "in", ids)
+    .where("deleted_at", "is", null)
+    .execute();
+  for (const a of rows) {
+    out.set(a.id, {
+      chartId: a.chart_id,
+      json:
+        `{"id":${s(a.id)},"chartId":${s(a.chart_id)},"filename":${s(a.filename)},"sha256":${s(a.sha256)},"size":${Number(a.size)},` +
+        `"type":${s(a.type)},"pages":${a.pages === null ? "null" : Number(a.pages)},"createdAt":${s(a.created_at)}}`,
+    });
+  }
+  return out;
+}

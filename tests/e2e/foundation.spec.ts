@@ -1,0 +1,176 @@
+// The foundation, end to end: a new leader starts a band and invites a player who can read but not
+// edit; the demo book opens for a demo account; the library's search, sort and filters; chart text
+// errors at their line; accessibility; and the library on a phone.
+import { expect, test, type Browser, type Page } from "@playwright/test";
+import { DEMO_CHARTS } from "../../db/demo-charts";
+import { expectNoSeriousA11yIssues } from "./helpers/axe";
+import { fillSignUp, newPerson, signIn, signUp } from "./helpers/auth";
+import { DEMO_BAND, DEMO_BAND_ID, demoLeader, demoPlayer } from "./helpers/demo";
+import { waitForLink } from "./helpers/mail";
+import { BandsPage } from "./pages/bands";
+import { ChartFormPage } from "./pages/chart-form";
+import { LibraryPage } from "./pages/library";
+import { MembersPage } from "./pages/members";
+
+// The header lines of the seeded chart texts: what the library must show.
+const header = (text: string, name: string) => new RegExp(`^${name}:\\s*(.+)$`, "m").exec(text)?.[1]?.trim() ?? "";
+const demo = DEMO_CHARTS.map((c) => ({
+  title: header(c.text, "title"),
+  composer: header(c.text, "composer"),
+  key: header(c.text, "key"),
+  feel: header(c.text, "feel"),
+}));
+const demoTitles = demo.map((c) => c.title);
+
+async function freshPage(browser: Browser): Promise<Page> {
+  const context = await browser.newContext();
+  return context.newPage();
+}
+
+/** Signs in as a demo account and opens its band's library; returns the band id. */
+async function openDemoLibrary(page: Page, who = demoLeader()): Promise<string> {
+  await signIn(page, who.email, who.password, "/bands");
+  const bands = new BandsPage(page);
+  await expect(bands.bandLinks.filter({ hasText: DEMO_BAND.name })).toBeVisible({ timeout: 30_000 });
+  await bands.bandLinks.filter({ hasText: DEMO_BAND.name }).click();
+  await page.waitForURL(new RegExp(`/bands/${DEMO_BAND_ID}$`));
+  await new LibraryPage(page).waitForBook(demoTitles.length);
+  return DEMO_BAND_ID;
+}
+
+test("a new leader starts a band and invites a player, who reads the book but cannot change it", async ({ browser }) => {
+  const leader = newPerson("Leader");
+  const player = newPerson("Player");
+  const lp = await freshPage(browser);
+
+  await signUp(lp, leader);
+  const bands = new BandsPage(lp);
+  await bands.goto();
+  const bandId = await bands.createBand("The Harbour Lights Quintet", "Port Wenna");
+
+  // A chart for the player to find (and to try to change).
+  const form = new ChartFormPage(lp);
+  await form.gotoNew(bandId);
+  await form.fill({ title: "Salt Road Shuffle", composer: "The band", key: "F", tempo: "112", feel: "shuffle", text: "A:\n| F7 | Bb7 | F7 | C7 |\n", message: "first version" });
+  await form.save.click();
+  await lp.waitForURL(new RegExp(`/bands/${bandId}/charts/[^/]+$`), { timeout: 30_000 });
+  const chartId = decodeURIComponent(new URL(lp.url()).pathname.split("/")[4] ?? "");
+  expect(chartId).not.toBe("");
+
+  const members = new MembersPage(lp);
+  await members.goto(bandId);
+  await members.invite(player.email, "player", "bb");
+  await expect(members.inviteResult).toContainText(`Invite sent to ${player.email}`);
+
+  const link = await waitForLink(lp.request, player.email, /https?:\/\/[^\s"'<>]+\/invite\/[A-Za-z0-9_-]+/);
+
+  // The player follows the link, makes an account on the way, and joins.
+  const pp = await freshPage(browser);
+  await pp.goto(link);
+  await expect(pp.getByRole("heading", { level: 1 })).toContainText("The Harbour Lights Quintet");
+  await fillSignUp(pp, player);
+  await pp.waitForURL(new RegExp(`/bands/${bandId}`), { timeout: 30_000 });
+
+  const library = new LibraryPage(pp);
+  await library.goto(bandId);
+  await expect(library.row("Salt Road Shuffle")).toBeVisible();
+  await expect(library.newChart).toHaveCount(0);
+  await expect(library.editLinks).toHaveCount(0);
+  await expect(pp.getByTestId("nav-members")).toHaveCount(0);
+
+  // Hidden controls are not the lock: the server refuses the player's edit itself.
+  const res = await pp.request.put(`/api/bands/${bandId}/charts/${chartId}`, {
+    data: { title: "Salt Road Shuffle", composer: "", key: "F", meter: "4/4", tempo: 112, feel: "shuffle", sourceText: "A:\n| F7 | F7 | F7 | F7 |\n", message: "", baseRevision: 1 },
+  });
+  expect(res.status()).toBe(403);
+  const body = (await res.json()) as { error?: { message?: string } };
+  expect(body.error?.message).toMatch(/leader or arranger/);
+});
+
+test("a demo account signs in and lands on a library of the demo charts", async ({ page }) => {
+  await openDemoLibrary(page);
+  const library = new LibraryPage(page);
+  await expect(library.rows).toHaveCount(demoTitles.length);
+  for (const title of demoTitles) await expect(library.row(title)).toBeVisible();
+  await expect(library.newChart).toBeVisible();
+});
+
+test("search, sort and filters narrow the library and live in the address", async ({ page }) => {
+  const bandId = await openDemoLibrary(page);
+  const library = new LibraryPage(page);
+
+  await library.search.fill("waltz");
+  await expect(page).toHaveURL(/[?&]q=waltz/);
+  const waltzes = demo.filter((c) => /waltz/i.test(`${c.title} ${c.composer} ${c.feel}`));
+  expect(waltzes.length).toBeGreaterThan(1);
+  await expect(library.rows).toHaveCount(waltzes.length);
+  for (const c of waltzes) await expect(library.row(c.title)).toBeVisible();
+
+  await library.goto(bandId, "?feel=jazz+waltz");
+  await expect(library.rows).toHaveCount(demo.filter((c) => c.feel === "jazz waltz").length);
+  expect(new Set(await library.column("cell-feel"))).toEqual(new Set(["jazz waltz"]));
+
+  await library.goto(bandId);
+  await library.keyFilter.selectOption("F");
+  await expect(page).toHaveURL(/[?&]key=F(&|$)/);
+  await expect(library.rows).toHaveCount(demo.filter((c) => c.key === "F").length);
+  expect(new Set(await library.column("cell-key"))).toEqual(new Set(["F"]));
+
+  await library.goto(bandId, "?sort=tempo&dir=desc");
+  const tempos = (await library.column("cell-tempo")).map((t) => Number(t)).filter((n) => !Number.isNaN(n));
+  expect(tempos.length).toBeGreaterThan(2);
+  expect(tempos).toEqual([...tempos].sort((a, b) => b - a));
+
+  await page.getByTestId("sort-title").click();
+  await expect(page).toHaveURL(/\/bands\/[^?]+$/);
+  const titles = await library.titles();
+  expect(titles).toEqual([...titles].sort((a, b) => a.localeCompare(b, "en", { sensitivity: "base" })));
+});
+
+test("a chart text error is shown at its line", async ({ page }) => {
+  const bandId = await openDemoLibrary(page);
+  const form = new ChartFormPage(page);
+  await form.gotoNew(bandId);
+  await form.fill({ title: "Broken Compass", text: "A:\n| Cmaj7 | Am7 |\n| Dm7 | Hx7 |\n| Cmaj7 |\n" });
+  await expect(form.textError).toBeVisible();
+  await expect(form.textError).toHaveAttribute("data-line", "3");
+  await expect(form.problemLine).toHaveText("3");
+  await form.text.fill("A:\n| Cmaj7 | Am7 |\n| Dm7 | G7 |\n");
+  await expect(form.textError).toHaveCount(0);
+});
+
+test("landing, sign-in, library and chart form have no serious accessibility problems", async ({ page }) => {
+  await page.goto("/");
+  await expect(page.getByRole("heading", { level: 1, name: "Pedalpoint" })).toBeVisible();
+  await expectNoSeriousA11yIssues(page, "the landing page");
+
+  await page.goto("/signin");
+  await expect(page.getByLabel("Email", { exact: true })).toBeVisible();
+  await expectNoSeriousA11yIssues(page, "the sign-in page");
+
+  const bandId = await openDemoLibrary(page);
+  await expectNoSeriousA11yIssues(page, "the library");
+
+  const form = new ChartFormPage(page);
+  await form.gotoNew(bandId);
+  await expectNoSeriousA11yIssues(page, "the new-chart form");
+});
+
+test.describe("on a phone", () => {
+  test.use({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+
+  test("the library fits the screen and its rows can be tapped", async ({ page }) => {
+    await openDemoLibrary(page, demoPlayer());
+    const library = new LibraryPage(page);
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    const link = page.getByTestId("chart-link").first();
+    const box = await link.boundingBox();
+    expect(box?.height ?? 0).toBeGreaterThanOrEqual(44);
+    await expect(library.search).toBeVisible();
+    const title = (await link.innerText()).trim();
+    await link.tap();
+    await page.waitForURL(/\/charts\/[^/]+$/);
+    await expect(page.getByText(title).first()).toBeVisible();
+  });
+});
