@@ -40,6 +40,8 @@ export function AppHeader() {
   const membership = useMembership(bandId ?? "");
   const [leaving, setLeaving] = useState(false);
   const band = bandId ? bands?.find((b) => b.id === bandId) : undefined;
+  // Reading views (the bandstand, playing a set) use the whole screen.
+  const onStage = /\/(bandstand|play)(\/|$)/.test(pathname);
   const items = bandId ? navFor(bandId, membership?.role === "leader") : [];
 
   async function signOut() {
@@ -51,6 +53,7 @@ export function AppHeader() {
     }
   }
 
+  if (onStage) return null;
   return (
     <header className="no-print border-b border-ink-soft bg-ink text-paper">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:bg-paper focus:px-3 focus:py-2 focus:text-ink">

@@ -55,7 +55,8 @@ function decodeBody(body: string, encoding: string | undefined): string {
 }
 
 export function decodeWords(s: string): string {
-  return s.replace(/=\?([^?]+)\?([BbQq])\?([^?]*)\?=/g, (_m, _charset: string, kind: string, text: string) =>
+  // RFC 2047: white space between two encoded words is not part of the text.
+  return s.replace(/(\?=)\s+(?==\?)/g, "$1").replace(/=\?([^?]+)\?([BbQq])\?([^?]*)\?=/g, (_m, _charset: string, kind: string, text: string) =>
     kind.toUpperCase() === "B"
       ? Buffer.from(text, "base64").toString("utf8")
       : decodeQuotedPrintable(text.replace(/_/g, " ")),

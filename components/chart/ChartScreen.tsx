@@ -14,6 +14,8 @@ import { suggestIntros } from "./core";
 import { PagedChart, type PagedChartControls } from "./PagedChart";
 import { InstrumentPicker, IntroPicker, KeyPicker } from "./Pickers";
 import { PrintSheets } from "./PrintSheets";
+import { MarksPanel } from "@/components/marks/MarksPanel";
+import { useChartMarks } from "@/components/marks/useBarMarks";
 import { buildPerformance } from "./performance";
 import { useBoxSize } from "./useBoxSize";
 import { useChoices } from "./useChoices";
@@ -33,6 +35,7 @@ export function ChartScreen() {
   }, [chartId, local]);
 
   const chart = local?.body;
+  const marks = useChartMarks(chartId, chart);
   const performance = useMemo(() => {
     if (!chart) return null;
     try {
@@ -93,6 +96,7 @@ export function ChartScreen() {
                 height={size.height}
                 label={`${chart.title}, ${performance.text.partLabel}`}
                 controls={controls}
+                marks={marks}
                 onView={(_, page, pages, atStart, atEnd) => setCounter({ page, pages, atStart, atEnd })}
               />
             ) : (
@@ -127,6 +131,7 @@ export function ChartScreen() {
 
       <div className="no-print mt-8 flex flex-col gap-6">
         <ChartMeta chart={local} />
+        <MarksPanel bandId={bandId} chartId={chartId} chart={chart} chartRevision={local.revision} />
         <ChartHistory bandId={bandId} chartId={chartId} />
         <p className="text-sm text-ink-muted">
           Print or share parts only of music your band has the rights to; local copyright rules and licences apply.

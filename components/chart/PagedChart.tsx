@@ -4,6 +4,7 @@
 // element carries data-testid="chart-page" with data-page / data-pages for outside checks.
 import { useEffect, useImperativeHandle, useMemo, useRef, useState, type Ref } from "react";
 import type { Arrangement } from "@/lib/chart/model";
+import type { BarMark } from "@/lib/setlist/marks";
 import { layoutChart } from "@/lib/render/layout";
 import type { LayoutOptions } from "@/lib/render/types";
 import type { View } from "@/lib/render/half";
@@ -30,23 +31,26 @@ export interface PagedChartProps {
   controls?: Ref<PagedChartControls>;
   onView?: (view: View, page: number, pages: number, atStart: boolean, atEnd: boolean) => void;
   className?: string;
+  /** The reader's personal marks, keyed by `${section}:${bar}` (lib/setlist marksByBar). */
+  marks?: ReadonlyMap<string, BarMark>;
 }
 
-export function PagedChart({ arrangement, text, width, height, halfTurns = false, layout: extra, label, controls, onView, className }: PagedChartProps) {
+export function PagedChart({ arrangement, text, width, height, halfTurns = false, layout: extra, label, controls, onView, className, marks }: PagedChartProps) {
   const host = useRef<HTMLDivElement>(null);
   const live = useRef<HTMLParagraphElement>(null);
   const flipper = useRef<PageFlipper | null>(null);
   const [error, setError] = useState<string | null>(null);
   const onViewRef = useRef(onView);
   const textKey = JSON.stringify(text);
+  const marksKey = JSON.stringify(marks ? [...marks] : []);
   useEffect(() => {
     onViewRef.current = onView;
   });
+  // `extra` is compared by value so callers can pass a literal.
+  const extraKey = JSON.stringify(extra ?? {});
   const layout = useMemo(
-    () => (width > 0 && height > 0 ? layoutChart(arrangement, { width, height, ...extra }) : null),
-    // `extra` is compared by value so callers can pass a literal.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-    [arrangement, width, height, JSON.stringify(extra ?? {})],
+    () => (width > 0 && height > 0 ? layoutChart(arrangement, { width, height, ...(JSON.parse(extraKey) as Partial<LayoutOptions>) }) : null),
+    [arrangement, width, height, extraKey],
   );
 
   useImperativeHandle(controls, () => ({
@@ -65,7 +69,8 @@ export function PagedChart({ arrangement, text, width, height, halfTurns = false
     musicFontsReady()
       .then(() => {
         if (gone) return;
-        job = drawSheets(el, { layout, writtenKey: arrangement.writtenKey, text: JSON.parse(textKey) as PageText });
+        const drawnMarks = new Map(JSON.parse(marksKey) as [string, BarMark][]);
+        job = drawSheets(el, { layout, writtenKey: arrangement.writtenKey, text: JSON.parse(textKey) as PageText, marks: drawnMarks });
         const pages = layout.pages.length;
         flipper.current = new PageFlipper(
           el,
@@ -86,7 +91,7 @@ export function PagedChart({ arrangement, text, width, height, halfTurns = false
       gone = true;
       job?.cancel();
     };
-  }, [layout, arrangement.writtenKey, textKey, halfTurns]);
+  }, [layout, arrangement.writtenKey, textKey, halfTurns, marksKey]);
 
   return (
     <div className={className} style={{ width, height, position: "relative" }}>

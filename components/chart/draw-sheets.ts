@@ -1,6 +1,7 @@
 // Draws every page of a layout into its own sheet inside `host`: page 1 at once, the rest one per
 // task right after, so the first page shows quickly and later turns find their page already drawn.
 import type { ChartLayout } from "@/lib/render/types";
+import type { BarMark } from "@/lib/setlist/marks";
 import { engravePage, type PageText } from "./engrave";
 
 let fonts: Promise<void> | null = null;
@@ -19,6 +20,8 @@ export interface SheetsInput {
   layout: ChartLayout;
   writtenKey: string;
   text: PageText;
+  /** The reader's personal marks (see EngraveInput.marks). */
+  marks?: ReadonlyMap<string, BarMark>;
 }
 
 export interface DrawJob {
@@ -40,7 +43,7 @@ export function drawSheets(host: HTMLElement, input: SheetsInput, onPage?: (page
     const page = input.layout.pages[i];
     const sheet = sheets[i];
     if (!page || !sheet) return;
-    engravePage(sheet, { layout: input.layout, page, writtenKey: input.writtenKey, text: input.text });
+    engravePage(sheet, { layout: input.layout, page, writtenKey: input.writtenKey, text: input.text, marks: input.marks });
     onPage?.(page.number);
   };
   const done = new Promise<void>((resolve) => {

@@ -18,6 +18,8 @@ import {
 import type { ChartLayout, Page, PlacedBar, System } from "@/lib/render/types";
 import { melodyNotes, melodyTies } from "./melody";
 import { addText, drawChordSymbol, drawEndingBracket, drawLabelBox } from "./svg-text";
+import { drawBarMark } from "@/components/marks/svg-marks";
+import { barKey, type BarMark } from "@/lib/setlist/marks";
 
 export interface PageText {
   title: string;
@@ -34,6 +36,8 @@ export interface EngraveInput {
   text: PageText;
   /** Draw the beat slashes with VexFlow's formatter (true) or leave them out (benchmarks). */
   slashes?: boolean;
+  /** The reader's personal marks, keyed by `${section}:${bar}` of the bar's place in the chart. */
+  marks?: ReadonlyMap<string, BarMark>;
 }
 
 const LABEL_FONT = 15;
@@ -150,10 +154,13 @@ export function engravePage(host: HTMLElement, input: EngraveInput): SVGSVGEleme
     system.bars.forEach((b, i) => {
       const group = ctx.openGroup(b.intro ? "pp-bar pp-intro" : "pp-bar") as SVGGElement | undefined;
       group?.setAttribute("data-bar", String(b.bar.index));
+      if (b.bar.source) group?.setAttribute("data-source", barKey(b.bar.source));
       const notes = drawBar(ctx, layout, b, system, key, input.slashes ?? true);
       const next = system.bars[i + 1];
       drawSymbols(ctx, layout, b, system, notes, next ? next.noteX : b.x + b.width + 4);
       drawLabels(ctx, b, system);
+      const mark = b.bar.source ? input.marks?.get(barKey(b.bar.source)) : undefined;
+      if (mark && group) drawBarMark(group, { x: b.x, width: b.width, systemY: system.y, staffY: system.staffY }, mark);
       ctx.closeGroup();
     });
   }

@@ -47,7 +47,13 @@ export function ChartTextEditor({ value, onChange, problem, problemSource = "liv
         <label htmlFor={id} className="font-semibold">
           Chart text
         </label>
-        <a href="#chart-text-help" className="text-sm font-semibold text-brass-dark underline underline-offset-4">
+        <a
+          href="#chart-text-help"
+          onClick={() => {
+            const help = document.getElementById("chart-text-help");
+            if (help instanceof HTMLDetailsElement) help.open = true;
+          }}
+          className="text-sm font-semibold text-brass-dark underline underline-offset-4">
           How to write chart text
         </a>
       </div>

@@ -24,9 +24,10 @@ interface Props {
   setlist: LocalSetlist;
   initial: SetlistEntry[];
   charts: LocalChart[];
+  openHref?: (e: SetlistEntry) => string;
 }
 
-export function GigEditor({ bandId, setlist, initial, charts }: Props) {
+export function GigEditor({ bandId, setlist, initial, charts, openHref }: Props) {
   const [draft, setDraft] = useState<Draft>({ name: setlist.name, startsAt: setlist.startsAt, venue: setlist.venue, notes: setlist.notes, entries: initial });
   const [extraSets, setExtraSets] = useState(0);
   const [dirty, setDirty] = useState(false);
@@ -99,6 +100,7 @@ export function GigEditor({ bandId, setlist, initial, charts }: Props) {
             entries={bySet.get(n) ?? []}
             tunes={tunes}
             editable
+            openHref={openHref}
             onReorder={(list) => replaceSet(n, list)}
             onChange={(e) => setEntries((all) => all.map((x) => (x.id === e.id ? e : x)))}
             onRemove={(id) => setEntries((all) => all.filter((x) => x.id !== id))}

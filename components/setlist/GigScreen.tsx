@@ -9,6 +9,7 @@ import { SelectField } from "@/components/ui/Field";
 import { Notice } from "@/components/ui/Notice";
 import { PageColumn } from "@/components/ui/Page";
 import { INSTRUMENT_OPTIONS } from "@/components/ui/labels";
+import { chartQuery } from "@/components/chart/params";
 import { useBandRoute } from "@/lib/offline/route";
 import { groupBySet, type SetlistEntry } from "@/lib/setlist";
 import { canEditSetlists, deleteSetlistEverywhere, newId, saveSetlist, useBookCharts, useMyMembership, useSetlist } from "./data";
@@ -49,6 +50,8 @@ export function GigScreen() {
   const { setlist } = loaded;
   const editable = canEditSetlists(membership);
   const here = `${base}/${encodeURIComponent(setlist.id)}`;
+  const openHref = (e: SetlistEntry) =>
+    `/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(e.chartId)}${chartQuery({ instrument: part, key: e.key, intro: e.intro ?? undefined, list: setlist.id })}`;
 
   async function duplicate() {
     const id = newId();
@@ -85,9 +88,9 @@ export function GigScreen() {
       </div>
 
       {editable ? (
-        <GigEditor key={`${setlist.id}:${setlist.revision}`} bandId={bandId} setlist={setlist} initial={entries} charts={charts} />
+        <GigEditor key={`${setlist.id}:${setlist.revision}`} bandId={bandId} setlist={setlist} initial={entries} charts={charts} openHref={openHref} />
       ) : (
-        <ReadOnlySets entries={entries} tunes={tunes} />
+        <ReadOnlySets entries={entries} tunes={tunes} openHref={openHref} />
       )}
 
       {membership?.role === "leader" ? (
@@ -99,7 +102,7 @@ export function GigScreen() {
   );
 }
 
-function ReadOnlySets({ entries, tunes }: { entries: SetlistEntry[]; tunes: Map<string, TuneInfo> }) {
+function ReadOnlySets({ entries, tunes, openHref }: { entries: SetlistEntry[]; tunes: Map<string, TuneInfo>; openHref: (e: SetlistEntry) => string }) {
   const sets = groupBySet(entries);
   if (sets.length === 0) return <Notice title="No tunes yet">The leader has not put any tunes on this set list yet.</Notice>;
   const noop = () => undefined;
@@ -108,7 +111,7 @@ function ReadOnlySets({ entries, tunes }: { entries: SetlistEntry[]; tunes: Map<
       {sets.map((s) => (
         <section key={s.setNumber} aria-labelledby={`set-${s.setNumber}`} className="rounded-lg border border-ink-soft bg-paper-dim p-4" data-testid={`set-${s.setNumber}`}>
           <h2 id={`set-${s.setNumber}`} className="mb-3 text-xl font-bold">Set {s.setNumber}</h2>
-          <SetTunes setNumber={s.setNumber} setCount={sets.length} entries={s.entries} tunes={tunes} editable={false} onReorder={noop} onChange={noop} onRemove={noop} onMoveToSet={noop} />
+          <SetTunes setNumber={s.setNumber} setCount={sets.length} entries={s.entries} tunes={tunes} editable={false} openHref={openHref} onReorder={noop} onChange={noop} onRemove={noop} onMoveToSet={noop} />
         </section>
       ))}
     </div>

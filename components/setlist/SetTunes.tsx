@@ -13,6 +13,7 @@ import {
 } from "@dnd-kit/core";
 import { arrayMove, SortableContext, sortableKeyboardCoordinates, useSortable, verticalListSortingStrategy } from "@dnd-kit/sortable";
 import { CSS } from "@dnd-kit/utilities";
+import Link from "next/link";
 import { useState } from "react";
 import { Button } from "@/components/ui/Button";
 import type { Chart } from "@/lib/chart/model";
@@ -34,6 +35,8 @@ interface Props {
   onChange: (e: SetlistEntry) => void;
   onRemove: (id: string) => void;
   onMoveToSet: (id: string, setNumber: number) => void;
+  /** Where the tune opens with tonight's choices (the chart page). */
+  openHref?: (e: SetlistEntry) => string;
 }
 
 function titleOf(tunes: Map<string, TuneInfo>, e: SetlistEntry): string {
@@ -77,6 +80,11 @@ function Row({ entry, index, props }: { entry: SetlistEntry; index: number; prop
           </p>
           {entry.notes ? <p className="text-sm">{entry.notes}</p> : null}
         </div>
+        {props.openHref && tune ? (
+          <Link href={props.openHref(entry)} className="min-h-11 px-2 py-2 font-semibold underline" aria-label={`Open ${title} as arranged tonight`} data-testid="open-tune">
+            Open
+          </Link>
+        ) : null}
         {props.editable ? (
           <div className="flex flex-wrap gap-1">
             <Button tone="secondary" onClick={() => setOpen(!open)} aria-expanded={open} data-testid="arrange-tune">

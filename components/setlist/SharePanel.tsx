@@ -39,17 +39,20 @@ export function SharePanel({ bandId, setlistId, startsAt }: { bandId: string; se
   const [busy, setBusy] = useState(false);
   const [result, setResult] = useState<{ kind: "success" | "error"; text: string; field?: string } | null>(null);
 
-  const load = useCallback(async () => {
-    try {
-      const res = await fetch(base);
-      if (res.ok) setShares(((await res.json()) as { shares: ShareRow[] }).shares);
-    } catch {
-      setShares(null);
-    }
-  }, [base]);
+  const [version, setVersion] = useState(0);
+  const load = useCallback(() => setVersion((v) => v + 1), []);
   useEffect(() => {
-    void load();
-  }, [load]);
+    let alive = true;
+    fetch(base)
+      .then((res) => (res.ok ? (res.json() as Promise<{ shares: ShareRow[] }>) : null))
+      .then((body) => {
+        if (alive && body) setShares(body.shares);
+      })
+      .catch(() => undefined);
+    return () => {
+      alive = false;
+    };
+  }, [base, version]);
 
   async function share(e: React.FormEvent) {
     e.preventDefault();
@@ -68,7 +71,7 @@ export function SharePanel({ bandId, setlistId, startsAt }: { bandId: string; se
         setResult({ kind: "success", text: body.mailed ? `Sent to ${email}.` : `Shared, but the e-mail could not be sent. Try again later.` });
         setEmail("");
         setMessage("");
-        await load();
+        load();
       }
     } catch {
       setResult({ kind: "error", text: "No signal: sharing needs the server to send the e-mail. Try again when you are online." });
@@ -79,7 +82,7 @@ export function SharePanel({ bandId, setlistId, startsAt }: { bandId: string; se
 
   async function withdraw(id: string) {
     await fetch(`${base}/${encodeURIComponent(id)}`, { method: "DELETE" }).catch(() => null);
-    await load();
+    load();
   }
 
   return (

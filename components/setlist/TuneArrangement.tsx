@@ -85,7 +85,7 @@ export function TuneArrangement({ entry, chart, onChange }: { entry: SetlistEntr
             value={intro?.kind ?? ""}
             error={err("intro.kind")}
             onChange={(e) => setIntro(e.target.value ? { kind: e.target.value as IntroKind } : null)}
-            options={[{ value: "", label: "Straight in at the top (no intro)" }, ...INTRO_KINDS.map((k) => ({ value: k, label: describeIntroKind(k) }))]}
+            options={[{ value: "", label: chart?.intro ? "As written (the chart's own intro)" : "As written (straight in at the top)" }, ...INTRO_KINDS.map((k) => ({ value: k, label: describeIntroKind(k) }))]}
             data-testid="intro-kind"
           />
           {intro && intro.kind !== "composed" && intro.kind !== "solo-chorus" ? (

@@ -81,7 +81,6 @@ export function useMyMarks(chartIds: readonly string[]): LocalMark[] | undefined
       const data = readMark(r.data);
       return data ? [{ id: r.id, chartId: r.chartId, revision: r.revision, data }] : [];
     });
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [key]);
 }
 

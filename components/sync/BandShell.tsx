@@ -4,8 +4,10 @@
 import Link from "next/link";
 import { usePathname, useRouter } from "next/navigation";
 import { useEffect, type ReactNode } from "react";
+import { AppHeader } from "@/components/AppHeader";
 import { useEngineState, useLocalSession, useOnline } from "@/lib/offline/hooks";
 import { getSyncEngine } from "@/lib/offline/sync";
+import { startSyncTriggers } from "@/lib/offline/triggers";
 import { SyncStatus } from "./SyncStatus";
 import { UpdatePrompt } from "./UpdatePrompt";
 
@@ -45,7 +47,7 @@ export function BandShell({ children }: { children: ReactNode }) {
   const pathname = usePathname();
   const onStage = typeof window !== "undefined" ? window.location.pathname.includes("/bandstand") : pathname.includes("/bandstand");
 
-  useEffect(() => getSyncEngine().start(), []);
+  useEffect(() => startSyncTriggers(getSyncEngine()), []);
 
   return (
     <>
@@ -55,6 +57,7 @@ export function BandShell({ children }: { children: ReactNode }) {
           <SyncStatus />
         </div>
       )}
+      {onStage ? null : <AppHeader />}
       <Gate>{children}</Gate>
     </>
   );

@@ -6,7 +6,8 @@ export const CONTROL =
   "placeholder:text-ink-muted aria-[invalid=true]:border-red-800";
 
 interface FieldShell {
-  label: string;
+  /** Visible label; may carry screen-reader-only context, such as whose role this is. */
+  label: ReactNode;
   hint?: ReactNode;
   error?: string | null;
   className?: string;

@@ -1,7 +1,7 @@
 // Intros: the seven kinds a band starts a tune with, each with a plain explanation and a fit analysis.
 import {
   chordPitchClasses, dominantOf, formatChord, isDominantChord, isMinorChord, keyScale, parseChord, parseKey,
-  tritoneSubstitute, turnaround, twoFiveInto, type ChordTones,
+  qualityOf, tritoneSubstitute, turnaround, twoFiveInto, type ChordTones,
 } from "@/lib/music";
 import { Note } from "tonal";
 import { INTRO_KINDS, type Bar, type Chart, type IntroChoice, type IntroKind, type IntroResult, type Meter } from "./model";
@@ -78,20 +78,38 @@ function turnBack(bars: Bar[], target: ChordTones, meter: Meter, tritone: boolea
   return { bars: [...bars.slice(0, -1), turnedBar], turned: cells.join(" ") };
 }
 
-function suggestedVamp(target: ChordTones): [string, string] {
+function suggestedVamp(target: ChordTones, chart: Chart): [string, string] {
   const t = formatChord({ ...target, bass: null, alterations: [] });
-  if (isDominantChord(target)) return [`${target.root}7sus4`, `${target.root}7`];
+  const up = (ivl: string) => Note.pitchClass(Note.transpose(target.root, ivl));
+  if (isDominantChord(target)) {
+    // A blues starting on I7 vamps I7–IV7; another dominant on its own sus.
+    const onTonic = Note.chroma(target.root) === Note.chroma(parseKey(chart.key).tonic);
+    return onTonic ? [t, `${up("4P")}7`] : [`${target.root}7sus4`, `${target.root}7`];
+  }
   if (isMinorChord(target)) {
     if (target.quality === "m7b5" || target.quality.startsWith("dim")) return [t, dominantOf(target.root)];
-    return [t, `${Note.pitchClass(Note.transpose(target.root, "4P"))}7`];
+    return [t, `${up("4P")}7`];
   }
-  return [t, `${Note.pitchClass(Note.transpose(target.root, "2M"))}m7`];
+  return [t, `${up("2M")}m7`];
 }
 
-/** Notes of a chord foreign to the key and to bar 1's chord (a raised 6th/7th is at home in minor). */
+/** The scale a player hears over bar 1's chord (major, mixolydian, dorian, locrian…), as intervals. */
+function chordScale(target: ChordTones): string[] {
+  const fam = qualityOf(target).family;
+  if (fam === "half-diminished") return ["1P", "2m", "3m", "4P", "5d", "6m", "7m"];
+  if (fam === "diminished") return ["1P", "2M", "3m", "4P", "5d", "6m", "6M", "7M"];
+  if (fam === "augmented") return ["1P", "2M", "3M", "4A", "5A", "7m"];
+  if (fam === "minor") return ["1P", "2M", "3m", "4P", "5P", "6M", "7m", "7M"];
+  const seventh = isDominantChord(target) ? "7m" : "7M";
+  return ["1P", "2M", "3M", "4P", "5P", "6M", seventh];
+}
+
+/** Notes of a chord foreign both to the key and to bar 1's chord and scale (a raised 6th/7th is at home in minor). */
 function foreignNotes(symbol: string, chart: Chart, target: ChordTones): string[] {
   const key = parseKey(chart.key);
-  const home = new Set([...keyScale(key), ...chordPitchClasses(target)].map((p) => Note.chroma(p)));
+  const home = new Set(
+    [...keyScale(key), ...chordPitchClasses(target), ...chordScale(target).map((i) => Note.transpose(target.root, i))].map((p) => Note.chroma(p)),
+  );
   if (key.minor) for (const ivl of ["6M", "7M"]) home.add(Note.chroma(Note.transpose(key.tonic, ivl)));
   return chordPitchClasses(symbol).filter((p) => !home.has(Note.chroma(p)));
 }
@@ -136,8 +154,8 @@ export function generateIntro(chart: Chart, opts: IntroOptions): IntroResult {
     }
     case "vamp": {
       const given = opts.vamp ? ([...opts.vamp] as [string, string]) : null;
-      const pair = (given ?? suggestedVamp(tgt)).map((s) => formatChord(parseChord(s))) as [string, string];
-      const played = pair.map((s) => sub(s, tritone));
+      const pair = (given ?? suggestedVamp(tgt, chart)).map((s) => formatChord(parseChord(s))) as [string, string];
+      const played = pair.map((s) => (tritone && dominantInto(s, tgt) ? tritoneSubstitute(s) : s));
       const n = opts.bars ?? 2;
       const cells = n === 1 ? [played.join(" ")] : Array.from({ length: n }, (_, i) => played[i % 2]!);
       const bars = n === 1 ? [barOf(played, meter)] : cells.map((c) => barOf([c], meter));
@@ -148,10 +166,11 @@ export function generateIntro(chart: Chart, opts: IntroOptions): IntroResult {
         .map((s) => ({ s, foreign: foreignNotes(s, chart, tgt) }))
         .filter((x) => x.foreign.length >= 2);
       const fits = clashes.length === 0;
-      const better = suggestedVamp(tgt);
+      const better = suggestedVamp(tgt, chart);
+      const alternative = better.join(" | ") === pair.join(" | ") ? "" : `${better.join(" | ")} or `;
       const advice = fits
         ? `A two-chord vamp, ${played.join(" | ")}, ${opts.repeats && opts.repeats > 2 ? `${opts.repeats} times` : "until the cue"}, then ${topName} at the top.`
-        : `The vamp ${played.join(" | ")} clashes with ${topName} in bar 1: ${clashes.map((c) => `${c.s} brings ${c.foreign.join(", ")}`).join("; ")}, notes outside ${chart.key}. Try ${better.join(" | ")} or a ii–V into bar 1.`;
+        : `The vamp ${played.join(" | ")} clashes with ${topName} in bar 1: ${clashes.map((c) => `${c.s} brings ${c.foreign.join(", ")}`).join("; ")}, notes foreign to ${chart.key} and to bar 1. Try ${alternative}a ii–V into bar 1.`;
       return result(kind, withRepeats(bars, opts.repeats ?? 2), fits, advice, others, { choice: { ...choice, vamp: pair }, vamp: pair });
     }
     case "solo-chorus": {
@@ -166,7 +185,7 @@ export function generateIntro(chart: Chart, opts: IntroOptions): IntroResult {
     }
     case "turnaround": {
       const variant = opts.variant ?? "I-vi-ii-V";
-      const chords = turnaround(chart.key, variant, tritone);
+      const chords = turnaround(chart.key, variant, tritone, top.startsOnTonic && isDominantChord(tgt));
       const n = opts.bars ?? (meter.beats % 2 === 0 ? 2 : 4);
       const bars = spread(chords, n, meter);
       const advice = top.startsOnTonic

@@ -89,6 +89,7 @@ interface PendingBar {
   line: number;
   column: number;
   endingStart: number | null;
+  endingColumn: number;
   endingClose: boolean;
 }
 
@@ -122,13 +123,16 @@ function buildBar(tok: Extract<BarToken, { kind: "bar" }>, meter: Meter, line: n
   if (n > meter.beats) {
     throw new ChartTextError(line, words[meter.beats]!.column, `Too many chords for one bar: ${n} chords and slashes, but a ${meterText} bar has ${beatWords(meter.beats)}`);
   }
-  if (meter.beats % n !== 0) {
-    throw new ChartTextError(line, words[0]!.column, `${n} chords and slashes can't share a ${meterText} bar evenly: write one per beat, holding chords with / (like "C / / G7")`);
-  }
-  const each = meter.beats / n;
+  // Even shares; when the count does not divide the bar, the earlier chords take the extra beats
+  // (| C G7 | in 3/4 is two beats and one, as players read it).
+  const base = Math.floor(meter.beats / n);
+  const extra = meter.beats - base * n;
+  let beat = 0;
   words.forEach((w, i) => {
+    const each = base + (i < extra ? 1 : 0);
     if (w.text === "/") {
       bar.chords[bar.chords.length - 1]!.beats += each;
+      beat += each;
       return;
     }
     let symbol: string;
@@ -138,7 +142,8 @@ function buildBar(tok: Extract<BarToken, { kind: "bar" }>, meter: Meter, line: n
       if (e instanceof ChordSymbolError) throw new ChartTextError(line, w.column, e.message);
       throw e;
     }
-    bar.chords.push({ symbol, beat: i * each, beats: each });
+    bar.chords.push({ symbol, beat, beats: each });
+    beat += each;
   });
   return bar;
 }
@@ -152,7 +157,7 @@ function settleEndings(sec: PendingSection): void {
     if (p.endingStart !== null) {
       const n = p.endingStart;
       if (n > 1 && !runs.some((r) => r.n === n - 1)) {
-        throw new ChartTextError(p.line, p.column, `Ending [${n} comes without an ending [${n - 1} before it in this section`);
+        throw new ChartTextError(p.line, p.endingColumn, `Ending [${n} comes without an ending [${n - 1} before it in this section`);
       }
       active = n;
       runs.push({ n, last: p });
@@ -237,7 +242,7 @@ export function parseChartText(text: string): Chart {
     for (const tok of scanBarLine(body, offset, line)) {
       if (tok.kind !== "bar") continue;
       const bar = buildBar(tok, meter, line);
-      const p: PendingBar = { bar, line, column: tok.column, endingStart: tok.ending, endingClose: tok.endingClose };
+      const p: PendingBar = { bar, line, column: tok.column, endingStart: tok.ending, endingColumn: tok.endingColumn ?? tok.column, endingClose: tok.endingClose };
       if (bar.simile && current.bars.length === 0) throw new ChartTextError(line, tok.column, "% repeats the bar before, but this section has no bar before it");
       current.bars.push(p);
       lineBars.push(p);
@@ -276,7 +281,8 @@ export function parseChartText(text: string): Chart {
   const toSection = (s: PendingSection): Section => ({ label: s.label, bars: s.bars.map((p) => p.bar) });
   const intro = sections.find((s) => s.isIntro);
   const form = sections.filter((s) => !s.isIntro);
-  if (form.length === 0) throw new ChartTextError(lines.length, 1, "The chart has no bars yet: add a section like `A:` followed by a bar line like `| Cmaj7 | Dm7 G7 |`");
+  const lastLine = lines.reduce((last, l, i) => (l.trim() ? i + 1 : last), 1);
+  if (form.length === 0) throw new ChartTextError(lastLine, 1, "The chart has no bars yet: add a section like `A:` followed by a bar line like `| Cmaj7 | Dm7 G7 |`");
 
   const chart = {
     title: meta.title,

@@ -18,6 +18,8 @@ export interface ScannedBar {
   ending: number | null;
   /** `]` after this bar closes its ending. */
   endingClose: boolean;
+  /** Column of the `[n`, for errors about the ending. */
+  endingColumn?: number;
 }
 export type BarToken = ScannedBar;
 
@@ -26,6 +28,7 @@ interface Open {
   column: number;
   repeatStart: boolean;
   ending: number | null;
+  endingColumn?: number;
   byBarline: boolean;
 }
 
@@ -48,6 +51,7 @@ export function scanBarLine(body: string, offset: number, line: number): Scanned
       repeatEnd: false,
       ending: cur.ending,
       endingClose: false,
+      ...(cur.endingColumn !== undefined ? { endingColumn: cur.endingColumn } : {}),
       ...extra,
     };
     bars.push(b);
@@ -116,6 +120,7 @@ export function scanBarLine(body: string, offset: number, line: number): Scanned
       if (n < 1 || n > 8) fail(i, "Endings are numbered 1 to 8");
       if (!c) open(i, false);
       (cur as Open | null)!.ending = n;
+      (cur as Open | null)!.endingColumn = col(i);
       i += m![0].length;
       continue;
     }

@@ -39,7 +39,7 @@ function sectionText(section: Section, meter: Meter): string[] {
   const { bars } = section;
   for (let start = 0; start < bars.length; start += BARS_PER_LINE) {
     let line = "";
-    let melody = "";
+    const melody: string[] = [];
     let anyMelody = false;
     for (let i = start; i < Math.min(start + BARS_PER_LINE, bars.length); i++) {
       const bar = bars[i]!;
@@ -49,13 +49,16 @@ function sectionText(section: Section, meter: Meter): string[] {
       const content = bar.simile ? "%" : chordText(bar.chords, meter);
       const close = endingNeedsClose(bars, i) ? " ]" : "";
       const repeat = bar.repeatEnd ? ` :|${bar.repeatTimes && bar.repeatTimes > 2 ? `x${bar.repeatTimes}` : ""}` : "";
-      line += `${line && opener === "" ? " " : line ? " " : ""}${opener}${ending}${content}${close}${repeat}`;
-      melody += ` | ${bar.melody?.length ? bar.melody.map(formatMelodyNote).join(" ") : ""}`;
+      line += `${line ? " " : ""}${opener}${ending}${content}${close}${repeat}`;
+      melody.push(bar.melody?.length ? bar.melody.map(formatMelodyNote).join(" ") : "");
       if (bar.melody?.length) anyMelody = true;
     }
     if (!bars[Math.min(start + BARS_PER_LINE, bars.length) - 1]!.repeatEnd) line += " |";
     out.push(line.trim());
-    if (anyMelody) out.push(`melody:${melody} |`.replace(/\s+\|/g, " |"));
+    if (anyMelody) {
+      while (melody[melody.length - 1] === "") melody.pop();
+      out.push(`melody: ${melody.map((m) => (m ? `| ${m} ` : "| ")).join("")}|`);
+    }
   }
   return out;
 }

@@ -133,7 +133,22 @@ function canonical(quality: Quality, alts: Alteration[], symbol: string): { qual
   return { quality, alterations: sorted };
 }
 
+// A book repeats the same few hundred symbols: remember what each one read as (bounded).
+const memo = new Map<string, Chord>();
+const MEMO_LIMIT = 5000;
+
+const copy = (c: Chord): Chord => (c.kind === "chord" ? { ...c, alterations: c.alterations.map((a) => ({ ...a })) } : { kind: "no-chord" });
+
 export function parseChord(symbol: string): Chord {
+  const hit = memo.get(symbol);
+  if (hit) return copy(hit);
+  const chord = readChord(symbol);
+  if (memo.size >= MEMO_LIMIT) memo.clear();
+  memo.set(symbol, chord);
+  return copy(chord);
+}
+
+function readChord(symbol: string): Chord {
   const s = normaliseGlyphs(symbol);
   if (s.length === 0) throw new ChordSymbolError(symbol, "it is empty");
   if (/^(N\.?C\.?|n\.c\.)$/i.test(s)) return { kind: "no-chord" };

@@ -36,9 +36,15 @@ export function parseKey(text: string): KeyInfo {
   return k;
 }
 
-/** MusicXML <fifths> for a key: negative = flats. May exceed ±7 for theoretical keys (G# major = 8). */
+const LETTER_FIFTHS: Record<string, number> = { F: -1, C: 0, G: 1, D: 2, A: 3, E: 4, B: 5 };
+
+/**
+ * MusicXML <fifths> for a key: negative = flats. May exceed ±7 for theoretical keys (G# major = 8).
+ * Counted on the circle of fifths (each sharp on the tonic adds 7); agrees with tonal's Key.alteration.
+ */
 export function keyFifths(key: KeyInfo): number {
-  return key.minor ? Key.minorKey(key.tonic).alteration : Key.majorKey(key.tonic).alteration;
+  const n = Note.get(key.tonic);
+  return LETTER_FIFTHS[n.letter]! + 7 * n.alt - (key.minor ? 3 : 0);
 }
 
 export interface KeySignature {
@@ -60,8 +66,14 @@ export function keySignature(key: string): KeySignature {
 }
 
 /** The seven pitch classes of the key's scale (natural minor for minor keys). */
+const scaleMemo = new Map<string, string[]>();
 export function keyScale(key: KeyInfo): string[] {
-  return [...(key.minor ? Key.minorKey(key.tonic).natural.scale : Key.majorKey(key.tonic).scale)];
+  let scale = scaleMemo.get(key.name);
+  if (!scale) {
+    scale = [...(key.minor ? Key.minorKey(key.tonic).natural.scale : Key.majorKey(key.tonic).scale)];
+    scaleMemo.set(key.name, scale);
+  }
+  return [...scale];
 }
 
 function accidentalCount(pc: string): number {
@@ -115,8 +127,17 @@ export function spellInKey(pc: string, key: KeyInfo): string {
 }
 
 /** Move a pitch class by the interval that takes `fromTonic` to `toTonic`, then spell it in `toKey`. */
+const moveMemo = new Map<string, string>();
+
 export function movePitchClass(pc: string, fromTonic: string, toKey: KeyInfo): string {
-  const ivl = Interval.distance(fromTonic, pc);
-  const moved = Note.transpose(toKey.tonic, ivl);
-  return spellInKey(Note.get(moved).pc || moved, toKey);
+  const memoKey = `${pc} ${fromTonic} ${toKey.name}`;
+  let out = moveMemo.get(memoKey);
+  if (out === undefined) {
+    const ivl = Interval.distance(fromTonic, pc);
+    const moved = Note.transpose(toKey.tonic, ivl);
+    out = spellInKey(Note.get(moved).pc || moved, toKey);
+    if (moveMemo.size > 20000) moveMemo.clear();
+    moveMemo.set(memoKey, out);
+  }
+  return out;
 }

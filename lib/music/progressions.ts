@@ -55,13 +55,19 @@ export type TurnaroundVariant = "I-vi-ii-V" | "iii-VI-ii-V";
 /**
  * The four chords of a turnaround to the tonic of `key`. Major: I–vi–ii–V (Cmaj7 Am7 Dm7 G7) or
  * iii–VI–ii–V (Em7 A7 Dm7 G7). Minor: i–viø–iiø–V7(b9) or ♭IIImaj7–♭VImaj7–iiø–V7(b9).
- * With `tritoneSub`, each dominant a fifth above the next chord is replaced by its tritone substitute.
+ * `blues`: the tonic is a dominant-quality I7 (I7–VI7–ii7–V7). With `tritoneSub`, every dominant but a
+ * blues I7 is replaced by its tritone substitute.
  */
-export function turnaround(key: string, variant: TurnaroundVariant = "I-vi-ii-V", tritoneSub = false): string[] {
+export function turnaround(key: string, variant: TurnaroundVariant = "I-vi-ii-V", tritoneSub = false, blues = false): string[] {
   const k = parseKey(key);
   const t = k.tonic;
   let chords: string[];
-  if (!k.minor) {
+  if (blues && !k.minor) {
+    // A blues tonic is I7, and its turnaround makes the vi a dominant too: I7–VI7–ii7–V7 (common practice).
+    chords = variant === "I-vi-ii-V"
+      ? [`${t}7`, `${transposePc(t, "6M")}7`, `${transposePc(t, "2M")}m7`, dominantOf(t)]
+      : [`${transposePc(t, "3M")}m7`, `${transposePc(t, "6M")}7`, `${transposePc(t, "2M")}m7`, dominantOf(t)];
+  } else if (!k.minor) {
     chords = variant === "I-vi-ii-V"
       ? [`${t}maj7`, `${transposePc(t, "6M")}m7`, `${transposePc(t, "2M")}m7`, dominantOf(t)]
       : [`${transposePc(t, "3M")}m7`, `${transposePc(t, "6M")}7`, `${transposePc(t, "2M")}m7`, dominantOf(t)];
@@ -71,5 +77,5 @@ export function turnaround(key: string, variant: TurnaroundVariant = "I-vi-ii-V"
       : [`${transposePc(t, "3m")}maj7`, `${transposePc(t, "6m")}maj7`, `${transposePc(t, "2M")}m7b5`, dominantOf(t, "7(b9)")];
   }
   if (!tritoneSub) return chords;
-  return chords.map((c) => (isDominantChord(c) ? tritoneSubstitute(c) : c));
+  return chords.map((c, i) => (isDominantChord(c) && !(blues && i === 0 && variant === "I-vi-ii-V") ? tritoneSubstitute(c) : c));
 }

@@ -70,7 +70,7 @@ export function harmonicFunction(chord: Chord, key: string | KeyInfo): HarmonicF
   const q = qualityOf(chord);
   const diatonic = keyScale(k).some((pc) => Note.chroma(pc) === Note.chroma(chord.root));
   if (diatonic) {
-    if (a.degree === 1) return q.dominant ? "secondary-dominant" : "tonic";
+    if (a.degree === 1) return "tonic"; // a dominant-quality I7 is the tonic of a blues
     if (a.degree === 5 || (a.degree === 7 && a.accidental === "")) return "dominant";
     if (q.dominant && !(k.minor && a.degree === 7)) return "secondary-dominant";
     if (a.degree === 2 || a.degree === 4 || (k.minor && (a.degree === 6 || a.degree === 7))) return "subdominant";

@@ -12,7 +12,10 @@ import type {
 export type { LocalBand, LocalChart, LocalMember, LocalMembership, LocalRevision, LocalSession, SyncStatus } from "./types";
 
 function toChart(r: ChartRow): LocalChart {
-  const { seenRevision: _s, deleted: _d, localEdit: _l, ...chart } = r;
+  const chart: LocalChart & Partial<ChartRow> = { ...r };
+  delete chart.seenRevision;
+  delete chart.deleted;
+  delete chart.localEdit;
   return chart;
 }
 

@@ -1,7 +1,6 @@
 // The device's sync engine: who is signed in and in which bands (bootstrap), then per band push the
 // outbox and pull the feed. One run at a time; a request during a run schedules one more run.
-// Runs on load, on regaining signal, on returning to the tab, every few minutes, and from the
-// service worker's Background Sync.
+// What starts a run lives in triggers.ts (pages) and worker/sw.ts (Background Sync).
 import type { LocalBook } from "./db";
 import { deleteBandData, getLocalBook } from "./db";
 import type { BootstrapResponse } from "./protocol";
@@ -10,8 +9,6 @@ import { pushOutbox } from "./push";
 import {
   AccessLostError, AuthError, NetworkError, QUOTA_MESSAGE, ServerError, browserTransport, isQuotaError, type Transport,
 } from "./transport";
-
-export const SYNC_EVERY_MS = 3 * 60_000;
 
 export type SyncProblem = "network" | "auth" | "server" | "quota" | "other";
 
@@ -162,30 +159,6 @@ export class SyncEngine {
     } catch {
       // The browser decides; the book still works without the promise of persistence.
     }
-  }
-
-  /** Wires the triggers in a page. Returns a function that removes them. */
-  start(): () => void {
-    const onOnline = () => void this.sync({ force: true });
-    const onVisible = () => {
-      if (document.visibilityState === "visible") void this.sync({ force: false });
-    };
-    const onMessage = (e: MessageEvent) => {
-      if ((e.data as { type?: string } | null)?.type === "pedalpoint-synced") void this.sync({ force: false });
-    };
-    window.addEventListener("online", onOnline);
-    document.addEventListener("visibilitychange", onVisible);
-    navigator.serviceWorker?.addEventListener("message", onMessage);
-    const timer = window.setInterval(() => {
-      if (navigator.onLine) void this.sync({ force: false });
-    }, SYNC_EVERY_MS);
-    void this.sync({ force: true });
-    return () => {
-      window.removeEventListener("online", onOnline);
-      document.removeEventListener("visibilitychange", onVisible);
-      navigator.serviceWorker?.removeEventListener("message", onMessage);
-      window.clearInterval(timer);
-    };
   }
 }
 

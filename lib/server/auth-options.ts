@@ -6,6 +6,7 @@ import CredentialsProvider from "next-auth/providers/credentials";
 import { ready } from "@/db";
 import { AppError } from "./errors";
 import { redeemSignInLink, signInWithPassword } from "./sign-in";
+import { findUserById } from "./users";
 
 declare module "next-auth" {
   interface Session {
@@ -67,12 +68,13 @@ export const authOptions: NextAuthOptions = {
       }
       return token;
     },
+    // A token can outlive its account (a fresh demo database, a deleted user): such a session
+    // carries no user id, so the app treats the caller as signed out instead of failing later.
     async session({ session, token }) {
-      session.user = {
-        id: token.sub ?? "",
-        email: token.email ?? "",
-        name: token.name ?? token.email ?? "",
-      };
+      const user = token.sub ? await findUserById(await ready(), token.sub) : undefined;
+      session.user = user
+        ? { id: user.id, email: user.email, name: user.name }
+        : { id: "", email: "", name: "" };
       return session;
     },
   },

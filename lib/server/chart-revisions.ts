@@ -7,6 +7,7 @@ import { ChartTextError } from "@/lib/chart";
 import { requireMember, type Actor } from "./access";
 import { prepareChart, toChartDto, type ChartDto, type ChartMeta, type PreparedChart } from "./chart-body";
 import { loadChartRow, writeRevision } from "./chart-store";
+import { assertPlanAllows } from "./billing";
 import { AppError } from "./errors";
 import { nowIso } from "./tokens";
 
@@ -69,6 +70,9 @@ export async function restoreRevision(
     if (!(err instanceof AppError) && !(err instanceof ChartTextError)) throw err;
     prepared = { title: old.title, meta, bodyJson: old.body_json, sourceText: old.source_text };
   }
+  const before = await loadChartRow(db, bandId, chartId);
+  // Bringing a deleted chart back adds one to the book.
+  if (before?.deleted_at) await assertPlanAllows(db, bandId, "chart");
   const row = await db.transaction().execute(async (trx) => {
     const current = await loadChartRow(trx, bandId, chartId);
     if (!current) throw new AppError("not_found", "That chart was not found.");

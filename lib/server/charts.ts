@@ -7,6 +7,7 @@ import { ChartCreateSchema, ChartUpdateSchema } from "@/lib/validation/chart-inp
 import { requireMember, type Actor } from "./access";
 import { prepareChart, toChartDto, toChartSummary, type ChartDto, type ChartSummary } from "./chart-body";
 import { chartDto, loadChartRow, rowFields, writeRevision, type Db } from "./chart-store";
+import { assertPlanAllows } from "./billing";
 import { AppError } from "./errors";
 import { parseInput } from "./input";
 import { newId, nowIso } from "./tokens";
@@ -43,6 +44,7 @@ export async function createChart(db: Kysely<Database>, actor: Actor | null, ban
   await requireMember(db, actor, bandId, "editCharts");
   const me = actor as Actor;
   const data = parseInput(ChartCreateSchema, input);
+  await assertPlanAllows(db, bandId, "chart");
   const prepared = prepareChart(data);
   const row: ChartRow = {
     id: data.id ?? newId(),

@@ -8,6 +8,7 @@ import { InviteCreateSchema, MemberUpdateSchema, MyInstrumentSchema } from "@/li
 import { RoleSchema } from "@/lib/validation/common";
 import { requireMember, type Actor } from "./access";
 import { recordChange } from "./changes";
+import { assertPlanAllows } from "./billing";
 import { AppError } from "./errors";
 import { parseInput } from "./input";
 import { appUrl, hashToken, newId, newToken, nowIso } from "./tokens";
@@ -96,6 +97,7 @@ export async function inviteMember(
       fields: [{ field: "email", message: "Already a member" }],
     });
   }
+  await assertPlanAllows(db, bandId, "member", now);
   const band = await db.selectFrom("bands").select("name").where("id", "=", bandId).executeTakeFirstOrThrow();
   const token = newToken();
   const invite: Invite = {

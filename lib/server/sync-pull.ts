@@ -10,7 +10,7 @@ import { requireMember, type Actor } from "./access";
 import { AppError } from "./errors";
 import { sharedSetlistIds } from "./shares";
 import { loadAnnotationFeedRows, loadSetlistFeedRows, type FeedRow } from "./setlist-feed";
-import { loadAttachments, loadCharts, type Loaded } from "./sync-rows";
+import { loadAttachments, loadCharts } from "./sync-rows";
 
 const PULL_ENTITIES = new Set(["chart", "setlist", "annotation", "attachment"]);
 
@@ -104,12 +104,12 @@ async function rosterJson(db: Kysely<Database>, bandId: string): Promise<string>
 }
 
 /** Deletes for everything in the band a sub can no longer see (their share ended or changed). */
-async function subRetractions(db: Kysely<Database>, bandId: string, visible: Visible): Promise<string[]> {
-  const out: string[] = [];
+async function subRetractions(db: Kysely<Database>, bandId: string, visible: Visible): Promise<{ key: string; json: string }[]> {
+  const out: { key: string; json: string }[] = [];
   const charts = await db.selectFrom("charts").select("id").where("band_id", "=", bandId).execute();
-  for (const c of charts) if (!visible.charts.has(c.id)) out.push(deleteJson("chart", c.id));
+  for (const c of charts) if (!visible.charts.has(c.id)) out.push({ key: `chart:${c.id}`, json: deleteJson("chart", c.id) });
   const lists = await db.selectFrom("setlists").select("id").where("band_id", "=", bandId).execute();
-  for (const l of lists) if (!visible.setlists.has(l.id)) out.push(deleteJson("setlist", l.id));
+  for (const l of lists) if (!visible.setlists.has(l.id)) out.push({ key: `setlist:${l.id}`, json: deleteJson("setlist", l.id) });
   return out;
 }
 
@@ -165,19 +165,25 @@ export async function pullChanges(db: Kysely<Database>, actor: Actor | null, ban
   const setlists = byId(await loadSetlistFeedRows(db, m, ids.setlist!, now));
   const marks = byId(await loadAnnotationFeedRows(db, m, ids.annotation!));
 
-  const changes: string[] = rescoped && visible ? await subRetractions(db, bandId, visible) : [];
+  const retracted = rescoped && visible ? await subRetractions(db, bandId, visible) : [];
+  const changes = retracted.map((r) => r.json);
+  const deleted = new Set(retracted.map((r) => r.key));
+  const drop = (entity: string, id: string) => {
+    if (!deleted.has(`${entity}:${id}`)) changes.push(deleteJson(entity, id));
+  };
   for (const r of page) {
-    if (retract.has(r.seq)) changes.push(deleteJson(r.entity, r.entity_id));
+    if (retract.has(r.seq)) drop(r.entity, r.entity_id);
     if (!picked.has(r.seq)) continue;
     if (r.entity === "chart" || r.entity === "attachment") {
       const row = (r.entity === "chart" ? charts : attachments).get(r.entity_id);
       if (visible && row?.chartId && !visible.charts.has(row.chartId)) continue;
-      changes.push(row ? upsertJson(r.entity, r.entity_id, row.json) : deleteJson(r.entity, r.entity_id));
+      if (row) changes.push(upsertJson(r.entity, r.entity_id, row.json));
+      else drop(r.entity, r.entity_id);
       continue;
     }
     const feed = (r.entity === "setlist" ? setlists : marks).get(r.entity_id);
     if (!feed) continue;
-    if (feed.op === "delete") changes.push(deleteJson(r.entity, r.entity_id));
+    if (feed.op === "delete") drop(r.entity, r.entity_id);
     else if (!(visible && r.entity === "annotation" && !visible.charts.has((feed.data as { chartId: string }).chartId))) {
       changes.push(upsertJson(r.entity, r.entity_id, JSON.stringify(feed.data)));
     }

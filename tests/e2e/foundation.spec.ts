@@ -85,6 +85,21 @@ test("a new leader starts a band and invites a player, who reads the book but ca
   expect(res.status()).toBe(403);
   const body = (await res.json()) as { error?: { message?: string } };
   expect(body.error?.message).toMatch(/leader or arranger/);
+
+  // The member screen is the leader's: the server says no to a player.
+  await pp.goto(`/bands/${bandId}/members`);
+  await expect(pp.getByTestId("members-refused")).toBeVisible();
+  await expect(pp.getByTestId("invite-form")).toHaveCount(0);
+
+  // The leader makes the player an arranger; the player's library then offers editing.
+  await members.goto(bandId);
+  await expectNoSeriousA11yIssues(lp, "the member screen");
+  const row = members.rowFor(player.email);
+  await row.getByTestId("member-role").selectOption("arranger");
+  await row.getByTestId("member-save").click();
+  await expect(row.getByTestId("member-result")).toContainText("arranger");
+  await library.goto(bandId);
+  await expect(library.newChart).toBeVisible({ timeout: 30_000 });
 });
 
 test("a demo account signs in and lands on a library of the demo charts", async ({ page }) => {
@@ -154,6 +169,45 @@ test("landing, sign-in, library and chart form have no serious accessibility pro
   const form = new ChartFormPage(page);
   await form.gotoNew(bandId);
   await expectNoSeriousA11yIssues(page, "the new-chart form");
+});
+
+test("a stale edit meets the newer version, and an earlier revision can be restored", async ({ page }) => {
+  const bandId = await openDemoLibrary(page);
+  const library = new LibraryPage(page);
+  const title = "Weatherglass";
+  await library.row(title).getByTestId("edit-chart").click();
+  await page.waitForURL(/\/edit$/);
+  const chartId = decodeURIComponent(new URL(page.url()).pathname.split("/")[4] ?? "");
+  const form = new ChartFormPage(page);
+  await expect(form.title).toHaveValue(title);
+  const seeded = await form.tempo.inputValue();
+
+  // Someone else publishes a tempo change while this form is open.
+  const got = await page.request.get(`/api/bands/${bandId}/charts/${chartId}`);
+  const { chart } = (await got.json()) as { chart: { composer: string; key: string; meter: string; tempo: number | null; feel: string; sourceText: string; revision: number } };
+  const theirs = await page.request.put(`/api/bands/${bandId}/charts/${chartId}`, {
+    data: { title, composer: chart.composer, key: chart.key, meter: chart.meter, tempo: 199, feel: chart.feel, sourceText: chart.sourceText, message: "pushed it", baseRevision: chart.revision },
+  });
+  expect(theirs.status()).toBe(200);
+
+  await form.tempo.fill("120");
+  await form.message.fill("slower for the singer");
+  await form.save.click();
+  await expect(page.getByTestId("chart-conflict")).toBeVisible();
+  await page.getByTestId("conflict-load").click();
+  await expect(form.tempo).toHaveValue("199");
+  await form.tempo.fill("120");
+  await form.save.click();
+  await page.waitForURL(new RegExp(`/charts/${chartId}$`));
+  await expect(page.getByTestId("meta-tempo")).toHaveText("120 bpm");
+
+  const history = page.getByTestId("chart-history");
+  const first = history.locator('[data-testid="history-entry"][data-revision="1"]');
+  await expect(history.locator('[data-testid="history-entry"]').first()).toContainText("slower for the singer", { timeout: 30_000 });
+  await first.getByTestId("restore-revision").click();
+  await first.getByTestId("restore-confirm").click();
+  await expect(history).toContainText("Version 1 is the current chart again");
+  await expect(page.getByTestId("meta-tempo")).toHaveText(`${seeded} bpm`);
 });
 
 test.describe("on a phone", () => {

@@ -40,7 +40,11 @@ export function MemberRow({ member, isMe, update, remove }: { member: RosterMemb
       </div>
       <form action={saveAction} className="mt-3 grid gap-3 sm:grid-cols-[1fr_1fr_1fr_auto] sm:items-end">
         <SelectField
-          label={`Role of ${member.name}`}
+          label={
+            <>
+              Role<span className="sr-only"> of {member.name}</span>
+            </>
+          }
           name="role"
           value={role}
           onChange={(e) => setRole(e.target.value as Role)}
@@ -48,8 +52,22 @@ export function MemberRow({ member, isMe, update, remove }: { member: RosterMemb
           error={saved.fields.role}
           data-testid="member-role"
         />
-        <SelectField label={`Part ${member.name} reads`} name="instrument" defaultValue={member.instrument} options={INSTRUMENT_OPTIONS} error={saved.fields.instrument} />
-        <LocalDateTime name="expiresAt" label="Access ends" initial={member.expiresAt} disabled={role !== "sub"} error={saved.fields.expiresAt} hint={role === "sub" ? undefined : "Only for subs"} />
+        <SelectField
+          label={
+            <>
+              Part<span className="sr-only"> {member.name} reads</span>
+            </>
+          }
+          name="instrument"
+          defaultValue={member.instrument}
+          options={INSTRUMENT_OPTIONS}
+          error={saved.fields.instrument}
+        />
+        {role === "sub" ? (
+          <LocalDateTime name="expiresAt" label="Access ends (optional)" initial={member.expiresAt} error={saved.fields.expiresAt} />
+        ) : (
+          <p className="self-center text-sm text-ink-muted">No end to access</p>
+        )}
         <Button type="submit" tone="secondary" disabled={saving} data-testid="member-save">
           {saving ? "Saving…" : "Save"}
         </Button>

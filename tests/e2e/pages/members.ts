@@ -17,6 +17,10 @@ export class MembersPage {
     this.roster = page.getByTestId("member-row");
   }
 
+  rowFor(email: string): Locator {
+    return this.page.locator(`[data-testid="member-row"][data-email="${email}"]`);
+  }
+
   async goto(bandId: string): Promise<void> {
     await this.page.goto(`/bands/${bandId}/members`);
     await this.inviteEmail.waitFor();

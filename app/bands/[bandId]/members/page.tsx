@@ -49,7 +49,10 @@ export default async function MembersPage({ params }: { params: Promise<{ bandId
     throw err;
   }
 
-  const { band, members, invites } = data;
+  const { band, invites } = data;
+  // Leaders first, then arrangers, players and subs; by name within each.
+  const order = ["leader", "arranger", "player", "sub"];
+  const members = [...data.members].sort((a, b) => order.indexOf(a.role) - order.indexOf(b.role) || a.name.localeCompare(b.name));
   return (
     <PageColumn>
       <PageTitle lead={`${band.name}: who is in the band, what they do and the part they read.`}>Members</PageTitle>

@@ -1,0 +1,14 @@
+import { NextResponse } from "next/server";
+import { ready } from "@/db";
+import { listAttachments, uploadAttachmentRequest } from "@/lib/server/attachments";
+import { route } from "@/lib/server/handler";
+import { ChartParams } from "@/lib/validation/band";
+
+export const GET = route({ params: ChartParams }, async ({ actor, params }) => ({
+  attachments: await listAttachments(await ready(), actor, params.bandId, params.chartId),
+}));
+
+// Multipart field "file": a PDF, PNG or JPEG part of the chart.
+export const POST = route({ params: ChartParams }, async ({ actor, params, request }) =>
+  NextResponse.json({ attachment: await uploadAttachmentRequest(await ready(), actor, params.bandId, params.chartId, request) }, { status: 201 }),
+);

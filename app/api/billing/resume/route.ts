@@ -1,0 +1,11 @@
+import { z } from "zod";
+import { ready } from "@/db";
+import { resumePlan, getPlanStatus } from "@/lib/server/billing";
+import { route } from "@/lib/server/handler";
+import { IdSchema } from "@/lib/validation/common";
+
+export const POST = route({ body: z.object({ bandId: IdSchema }).strict() }, async ({ actor, body }) => {
+  const db = await ready();
+  await resumePlan(db, actor, body.bandId);
+  return { plan: await getPlanStatus(db, actor, body.bandId) };
+});

@@ -1,0 +1,172 @@
+"use client";
+// The bandstand view: one tune at a time, full screen, in a low-light theme, turned by tap or pedal.
+// Reusable for a whole set: pass several tunes, each with its own key and intro.
+import Link from "next/link";
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import type { Chart, IntroChoice } from "@/lib/chart/model";
+import type { BarMark } from "@/lib/setlist/marks";
+import { useOnline } from "@/lib/offline/hooks";
+import { PagedChart, type PagedChartControls } from "@/components/chart/PagedChart";
+import { buildPerformance } from "@/components/chart/performance";
+import { cx } from "@/components/ui/cx";
+import { saveReadingSettings, useReadingSettings, type Theme } from "./settings";
+import { usePedalKeys } from "./usePedalKeys";
+import { useWakeLock } from "./useWakeLock";
+import "./bandstand.css";
+
+export interface BandstandTune {
+  chart: Chart;
+  /** Concert key for this performance (a singer's key); null or absent: the chart's key. */
+  key?: string | null;
+  /** undefined: the chart's own intro if it has one; null: none. */
+  intro?: IntroChoice | null;
+  /** Shown in the tune bar, e.g. "3. Lantern Street". */
+  label?: string;
+  /** What comes after this tune ("Next: Copper Kettle"), shown in the bar. */
+  next?: string;
+  /** The reader's personal marks on this chart, keyed by `${section}:${bar}`. */
+  marks?: ReadonlyMap<string, BarMark>;
+}
+
+export interface BandstandProps {
+  tunes: BandstandTune[];
+  instrument: string;
+  start?: number;
+  /** Where "Close" goes. */
+  exitHref: string;
+  onTuneChange?: (index: number) => void;
+}
+
+const BAR_HEIGHT = 44;
+const THEME_CLASS: Record<Theme, string> = { stage: "pp-theme-stage", ember: "pp-theme-ember" };
+
+export function Bandstand({ tunes, instrument, start = 0, exitHref, onTuneChange }: BandstandProps) {
+  const settings = useReadingSettings();
+  const online = useOnline();
+  const [index, setIndex] = useState(() => Math.min(Math.max(0, start), Math.max(0, tunes.length - 1)));
+  const [size, setSize] = useState({ width: 0, height: 0 });
+  const [ends, setEnds] = useState({ atStart: true, atEnd: true });
+  const controls = useRef<PagedChartControls>(null);
+  const counter = useRef<HTMLSpanElement>(null);
+  useWakeLock();
+
+  useEffect(() => {
+    const measure = () => setSize({ width: window.innerWidth, height: window.innerHeight - BAR_HEIGHT });
+    measure();
+    window.addEventListener("resize", measure);
+    return () => window.removeEventListener("resize", measure);
+  }, []);
+
+  const tune = tunes[index];
+  const performance = useMemo(() => {
+    if (!tune) return null;
+    try {
+      return buildPerformance({ chart: tune.chart, instrument, key: tune.key, intro: tune.intro });
+    } catch {
+      return null;
+    }
+  }, [tune, instrument]);
+
+  const last = tunes.length - 1;
+  const turn = useCallback(
+    (delta: 1 | -1) => {
+      const moved = delta > 0 ? controls.current?.next() : controls.current?.back();
+      // In a set, the same pedal goes on from a tune's last page to the next tune's first.
+      if (moved === false && index + delta >= 0 && index + delta <= last) {
+        setIndex(index + delta);
+        onTuneChange?.(index + delta);
+      }
+      return moved;
+    },
+    [index, last, onTuneChange],
+  );
+  usePedalKeys(settings.nextKeys, settings.backKeys, turn);
+
+  const goTune = (i: number) => {
+    if (i < 0 || i >= tunes.length || i === index) return;
+    setIndex(i);
+    onTuneChange?.(i);
+  };
+  const setTheme = (theme: Theme) => saveReadingSettings({ ...settings, theme });
+  const toggleHalf = () => saveReadingSettings({ ...settings, halfTurns: !settings.halfTurns });
+
+  return (
+    <div className={cx("pp-bandstand", THEME_CLASS[settings.theme])} data-testid="bandstand" data-theme={settings.theme}>
+      {performance && tune ? (
+        <div className="pp-bandstand-stage" style={{ height: size.height }}>
+          <PagedChart
+            key={index}
+            arrangement={performance.arrangement}
+            text={performance.text}
+            width={size.width}
+            height={size.height}
+            halfTurns={settings.halfTurns}
+            marks={tune.marks}
+            label={`${tune.chart.title}, ${performance.text.partLabel}`}
+            controls={controls}
+            onView={(_, page, pages, atStart, atEnd) => {
+              // Written straight to the DOM: a turn must not wait for a React render.
+              if (counter.current) counter.current.textContent = `${page} / ${pages}`;
+              setEnds((e) => (e.atStart === atStart && e.atEnd === atEnd ? e : { atStart, atEnd }));
+            }}
+          />
+          <button type="button" className="pp-tap pp-tap-back" aria-label="Previous page" data-testid="tap-back" onClick={() => turn(-1)} tabIndex={-1} />
+          <button type="button" className="pp-tap pp-tap-next" aria-label="Next page" data-testid="tap-next" onClick={() => turn(1)} tabIndex={-1} />
+        </div>
+      ) : (
+        <p role="alert" className="p-8 text-xl" style={{ height: size.height }}>
+          This tune could not be drawn.
+        </p>
+      )}
+      <nav className="pp-bandstand-bar" aria-label="Bandstand controls" style={{ height: BAR_HEIGHT }}>
+        <Link href={exitHref} className="pp-bar-button" data-testid="bandstand-exit">
+          Close
+        </Link>
+        {tunes.length > 1 ? (
+          <button type="button" className="pp-bar-button" onClick={() => goTune(index - 1)} disabled={index === 0} data-testid="prev-tune">
+            ← Tune
+          </button>
+        ) : null}
+        <span className="pp-bar-title" data-testid="tune-label">
+          {tune?.label ?? tune?.chart.title}
+          {tunes.length > 1 ? ` (${index + 1} of ${tunes.length})` : ""}
+        </span>
+        {tune?.next ? (
+          <span className="pp-bar-next" data-testid="next-up">
+            {tune.next}
+          </span>
+        ) : null}
+        <span ref={counter} className="pp-bar-counter" data-testid="page-counter" aria-hidden="true">
+          1 / 1
+        </span>
+        {tunes.length > 1 ? (
+          <button
+            type="button"
+            className={cx("pp-bar-button", ends.atEnd && index < tunes.length - 1 && "pp-bar-next-ready")}
+            onClick={() => goTune(index + 1)}
+            disabled={index >= tunes.length - 1}
+            data-testid="next-tune"
+          >
+            Tune →
+          </button>
+        ) : null}
+        <button type="button" className="pp-bar-button" aria-pressed={settings.halfTurns} onClick={toggleHalf} data-testid="half-turns">
+          Half turns
+        </button>
+        <button
+          type="button"
+          className="pp-bar-button"
+          onClick={() => setTheme(settings.theme === "stage" ? "ember" : "stage")}
+          data-testid="theme-toggle"
+        >
+          {settings.theme === "stage" ? "Night light" : "Stage light"}
+        </button>
+        {!online ? (
+          <span className="pp-offline" data-testid="offline-badge" role="status">
+            Offline · reading from this device
+          </span>
+        ) : null}
+      </nav>
+    </div>
+  );
+}

@@ -1,0 +1,109 @@
+"use client";
+// Reading settings for this device: which keys a page-turn pedal sends, the bandstand light, half turns.
+import { useEffect, useState } from "react";
+import { Button } from "@/components/ui/Button";
+import { PageColumn, PageTitle } from "@/components/ui/Page";
+import { DEFAULT_SETTINGS, keyName, saveReadingSettings, useReadingSettings, type ReadingSettings, type Theme } from "./settings";
+
+type Which = "nextKeys" | "backKeys";
+
+function KeyList({ which, title, settings }: { which: Which; title: string; settings: ReadingSettings }) {
+  const [listening, setListening] = useState(false);
+  const [message, setMessage] = useState("");
+  useEffect(() => {
+    if (!listening) return;
+    const onKey = (e: KeyboardEvent) => {
+      e.preventDefault();
+      e.stopPropagation();
+      setListening(false);
+      if (e.key === "Escape") return setMessage("Nothing added.");
+      const other: Which = which === "nextKeys" ? "backKeys" : "nextKeys";
+      const next = {
+        ...settings,
+        [which]: settings[which].includes(e.key) ? settings[which] : [...settings[which], e.key].slice(-8),
+        [other]: settings[other].filter((k) => k !== e.key),
+      };
+      saveReadingSettings(next);
+      setMessage(`${keyName(e.key)} now turns ${which === "nextKeys" ? "forward" : "back"}.`);
+    };
+    window.addEventListener("keydown", onKey, { capture: true });
+    return () => window.removeEventListener("keydown", onKey, { capture: true });
+  }, [listening, settings, which]);
+
+  return (
+    <section aria-labelledby={`${which}-title`} className="rounded-lg border border-paper-dim bg-white p-4">
+      <h2 id={`${which}-title`} className="text-lg font-semibold">
+        {title}
+      </h2>
+      <ul className="my-3 flex flex-wrap gap-2" data-testid={`${which}-list`}>
+        {settings[which].map((k) => (
+          <li key={k} className="flex items-center gap-1 rounded-md border border-ink-muted px-2 py-1">
+            <kbd className="font-mono">{keyName(k)}</kbd>
+            <button
+              type="button"
+              className="min-h-8 px-2 text-red-800 underline-offset-2 hover:underline"
+              aria-label={`Remove ${keyName(k)}`}
+              onClick={() => saveReadingSettings({ ...settings, [which]: settings[which].filter((x) => x !== k) })}
+            >
+              Remove
+            </button>
+          </li>
+        ))}
+      </ul>
+      <Button tone="secondary" onClick={() => setListening(true)} data-testid={`${which}-add`} aria-describedby={`${which}-msg`}>
+        {listening ? "Press the pedal or key now… (Esc to cancel)" : "Add a key"}
+      </Button>
+      <p id={`${which}-msg`} aria-live="polite" className="mt-2 text-sm text-ink-muted">
+        {message}
+      </p>
+    </section>
+  );
+}
+
+export function SettingsScreen() {
+  const settings = useReadingSettings();
+  const setTheme = (theme: Theme) => saveReadingSettings({ ...settings, theme });
+  return (
+    <PageColumn>
+      <PageTitle lead="Kept on this device only: each stand has its own pedal and its own light.">Reading settings</PageTitle>
+      <div className="flex flex-col gap-5">
+        <KeyList which="nextKeys" title="Keys that turn forward" settings={settings} />
+        <KeyList which="backKeys" title="Keys that turn back" settings={settings} />
+        <fieldset className="rounded-lg border border-paper-dim bg-white p-4">
+          <legend className="px-1 text-lg font-semibold">Bandstand light</legend>
+          {(
+            [
+              ["stage", "Stage: light text on near-black"],
+              ["ember", "Night: dim red on black, kindest to dark-adapted eyes"],
+            ] as const
+          ).map(([value, label]) => (
+            <label key={value} className="mt-2 flex items-center gap-3">
+              <input type="radio" name="theme" value={value} checked={settings.theme === value} onChange={() => setTheme(value)} className="size-5" />
+              {label}
+            </label>
+          ))}
+        </fieldset>
+        <label className="flex items-center gap-3 rounded-lg border border-paper-dim bg-white p-4">
+          <input
+            type="checkbox"
+            className="size-5"
+            checked={settings.halfTurns}
+            onChange={(e) => saveReadingSettings({ ...settings, halfTurns: e.target.checked })}
+            data-testid="half-turns-setting"
+          />
+          <span>
+            <span className="font-semibold">Half turns</span>
+            <span className="block text-sm text-ink-muted">
+              Before each full turn, the lower half of the screen shows the top of the next page, so you can read on while it changes.
+            </span>
+          </span>
+        </label>
+        <div>
+          <Button tone="quiet" onClick={() => saveReadingSettings(DEFAULT_SETTINGS)}>
+            Back to the usual settings
+          </Button>
+        </div>
+      </div>
+    </PageColumn>
+  );
+}

@@ -1,0 +1,77 @@
+"use client";
+// "Play this set": the whole night on the bandstand, tune after tune in play order, each with
+// tonight's key, tempo and intro, in the reader's own instrument. Everything comes from this device.
+import { useSearchParams } from "next/navigation";
+import { useMemo } from "react";
+import { Bandstand, type BandstandTune } from "@/components/bandstand/Bandstand";
+import { Notice } from "@/components/ui/Notice";
+import { useBandRoute } from "@/lib/offline/route";
+import { isInstrumentId } from "@/lib/music/instruments";
+import { endingInWords, introInWords, playOrder, type SetlistEntry } from "@/lib/setlist";
+import { useBookCharts, useMyMembership, useSetlist } from "./data";
+import { useTuneMarks } from "@/components/marks/useBarMarks";
+
+function prettyKey(k: string): string {
+  return k.replace("b", "♭").replace("#", "♯");
+}
+
+/** The line at the top of each tune: where it sits in the night and how it goes tonight. */
+export function tuneHeading(e: SetlistEntry, title: string, chartKey: string, chartTempo: number | null): string {
+  const tempo = e.tempo ?? chartTempo;
+  return [
+    `Set ${e.setNumber} · ${e.position + 1}. ${title}`,
+    `Key ${prettyKey(e.key ?? chartKey)}`,
+    tempo ? `♩ = ${tempo}` : "",
+    `Intro: ${introInWords(e.intro)}`,
+    e.ending ? `End: ${endingInWords(e.ending)}` : "",
+  ]
+    .filter(Boolean)
+    .join(" · ");
+}
+
+export function PlaySet() {
+  const { bandId, setlistId } = useBandRoute();
+  const params = useSearchParams();
+  const loaded = useSetlist(setlistId);
+  const charts = useBookCharts(bandId);
+  const membership = useMyMembership(bandId);
+  const asked = params.get("instrument");
+  const instrument = asked && isInstrumentId(asked) ? asked : (membership?.instrument ?? "concert");
+  const start = Math.max(0, Number(params.get("tune") ?? 1) - 1) || 0;
+
+  const order = useMemo(() => playOrder((loaded?.entries ?? []) as SetlistEntry[]), [loaded]);
+  const byId = useMemo(() => new Map((charts ?? []).map((c) => [c.id, c])), [charts]);
+  const marks = useTuneMarks(order.map((e) => e.chartId), byId);
+  const tunes = useMemo<BandstandTune[]>(
+    () =>
+      order.flatMap((e, i) => {
+        const c = byId.get(e.chartId);
+        if (!c) return [];
+        const next = order[i + 1];
+        const nextTitle = next ? byId.get(next.chartId)?.title : undefined;
+        return [
+          {
+            chart: { ...c.body, tempo: e.tempo ?? c.body.tempo },
+            key: e.key,
+            intro: e.intro ?? undefined,
+            label: tuneHeading(e, c.title, c.body.key, c.body.tempo),
+            next: nextTitle ? `Next: ${nextTitle}` : "Last tune of the night",
+            marks: marks.get(e.chartId),
+          },
+        ];
+      }),
+    [order, byId, marks],
+  );
+
+  if (!bandId || !setlistId) return null;
+  const exit = `/bands/${encodeURIComponent(bandId)}/setlists/${encodeURIComponent(setlistId)}`;
+  if (loaded === undefined || charts === undefined) return <p className="p-6 text-ink-muted">Opening the set…</p>;
+  if (loaded === null || tunes.length === 0) {
+    return (
+      <Notice kind="error" className="m-6" title={loaded === null ? "This set list is not on this device" : "No tunes to play"}>
+        <a href={exit} className="underline">Back</a>
+      </Notice>
+    );
+  }
+  return <Bandstand tunes={tunes} instrument={instrument} start={Math.min(start, tunes.length - 1)} exitHref={exit} />;
+}

@@ -1,0 +1,70 @@
+import "server-only";
+// Events from the payment provider. Nothing is trusted before the signature is checked with the
+// SDK's verifier (HMAC of timestamp and body; events older than 5 minutes are refused as replays).
+import type { Kysely } from "kysely";
+import type Stripe from "stripe";
+import type { Database } from "@/db/schema";
+import { sendMail } from "@/lib/mail";
+import { receiptMail } from "./billing-mail";
+import { applySubscription, bandFor, paymentClient, paymentConfig, WEBHOOK_TOLERANCE_SECONDS } from "./billing-store";
+import { AppError } from "./errors";
+import { appUrl } from "./tokens";
+
+export interface WebhookResult {
+  received: true;
+  type: string;
+  bandId: string | null;
+}
+
+export async function handleWebhook(db: Kysely<Database>, payload: string, signature: string | null, now = new Date()): Promise<WebhookResult> {
+  const cfg = paymentConfig();
+  if (!cfg.webhookSecret) throw new AppError("conflict", "Payments are not set up on this server.");
+  if (!signature) throw new AppError("bad_request", "This webhook call has no signature header.");
+  const stripe = paymentClient(cfg);
+  let event: Stripe.Event;
+  try {
+    event = stripe.webhooks.constructEvent(payload, signature, cfg.webhookSecret, WEBHOOK_TOLERANCE_SECONDS, undefined, now.getTime());
+  } catch (err) {
+    const stale = err instanceof Error && /tolerance/i.test(err.message);
+    throw new AppError("bad_request", stale ? "This webhook event is too old to accept." : "The webhook signature does not match; the event was ignored.");
+  }
+  switch (event.type) {
+    case "checkout.session.completed": {
+      const session = event.data.object;
+      const bandId = session.metadata?.bandId ?? session.client_reference_id ?? null;
+      if (!bandId || !session.subscription) return { received: true, type: event.type, bandId };
+      const subId = typeof session.subscription === "string" ? session.subscription : session.subscription.id;
+      const sub = await stripe.subscriptions.retrieve(subId);
+      await applySubscription(db, bandId, sub);
+      await sendReceipt(db, stripe, bandId, session, sub);
+      return { received: true, type: event.type, bandId };
+    }
+    case "customer.subscription.created":
+    case "customer.subscription.updated":
+    case "customer.subscription.deleted": {
+      const sub = event.data.object;
+      const bandId = await bandFor(db, sub);
+      if (bandId) await applySubscription(db, bandId, sub, event.type === "customer.subscription.deleted");
+      return { received: true, type: event.type, bandId };
+    }
+    default:
+      return { received: true, type: event.type, bandId: null };
+  }
+}
+
+async function sendReceipt(db: Kysely<Database>, stripe: Stripe, bandId: string, session: Stripe.Checkout.Session, sub: Stripe.Subscription): Promise<void> {
+  try {
+    const band = await db.selectFrom("bands").select("name").where("id", "=", bandId).executeTakeFirst();
+    const customerId = typeof session.customer === "string" ? session.customer : session.customer?.id;
+    const customer = customerId ? await stripe.customers.retrieve(customerId) : null;
+    const to = session.customer_email ?? (customer && !customer.deleted ? customer.email : null);
+    if (!band || !to) return;
+    const cents = session.amount_total ?? 0;
+    const amount = `${(cents / 100).toFixed(2)} ${(session.currency ?? "eur").toUpperCase()}`;
+    const end = sub.items?.data?.[0]?.current_period_end;
+    await sendMail(receiptMail({ to, bandName: band.name, amount, renewsAt: end ? new Date(end * 1000).toISOString() : null, link: appUrl(`/bands/${bandId}/plan`) }));
+  } catch (err) {
+    // The plan is in place; a lost receipt must not make the provider retry the event.
+    console.error("receipt mail failed", err);
+  }
+}
