@@ -1,10 +1,18 @@
 // `npm run demo`: build once if needed, then start with the demo band, the mail fake and the
-// payment fake. `--dev` runs `next dev` instead (no build, no service worker).
+// payment fake. `--dev` runs `next dev` instead (no build, no service worker); `--accounts` prints
+// the demo accounts table and stops.
 import { spawnSync } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
+import { demoAccountsTable } from "../db/seed";
 import { runStart } from "./start";
+
+// `npm run demo -- --accounts` prints the demo accounts as a Markdown table (for the README) and stops.
+if (process.argv.includes("--accounts")) {
+  console.log(demoAccountsTable());
+  process.exit(0);
+}
 
 const dev = process.argv.includes("--dev");
 const root = process.cwd();

@@ -25,7 +25,7 @@ export function ChartScreen() {
   const local = useChart(bandId, chartId);
   const membership = useMembership(bandId);
   const choices = useChoices(bandId, membership?.instrument);
-  const box = useRef<HTMLDivElement>(null);
+  const [box, setBox] = useState<HTMLDivElement | null>(null);
   const size = useBoxSize(box, { bottom: 72 });
   const controls = useRef<PagedChartControls>(null);
   const [counter, setCounter] = useState({ page: 1, pages: 1, atStart: true, atEnd: true });
@@ -87,7 +87,7 @@ export function ChartScreen() {
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <section aria-label="Chart" className="min-w-0">
-          <div ref={box} className="rounded-lg border border-paper-dim bg-white text-black shadow-sm">
+          <div ref={setBox} className="rounded-lg border border-paper-dim bg-white text-black shadow-sm">
             {performance?.ok ? (
               <PagedChart
                 arrangement={performance.arrangement}

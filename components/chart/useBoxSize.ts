@@ -1,12 +1,11 @@
 "use client";
-import { useEffect, useState, type RefObject } from "react";
+import { useEffect, useState } from "react";
 
 /** Width of an element and the height left below it in the window, rounded so small jitters don't re-lay out. */
-export function useBoxSize(ref: RefObject<HTMLElement | null>, opts: { minHeight?: number; bottom?: number; full?: boolean } = {}) {
+export function useBoxSize(el: HTMLElement | null, opts: { minHeight?: number; bottom?: number; full?: boolean } = {}) {
   const [size, setSize] = useState({ width: 0, height: 0 });
   const { minHeight = 420, bottom = 16, full = false } = opts;
   useEffect(() => {
-    const el = ref.current;
     if (!el) return;
     let timer: ReturnType<typeof setTimeout> | undefined;
     const measure = () => {
@@ -28,6 +27,6 @@ export function useBoxSize(ref: RefObject<HTMLElement | null>, opts: { minHeight
       ro.disconnect();
       window.removeEventListener("resize", later);
     };
-  }, [ref, minHeight, bottom, full]);
+  }, [el, minHeight, bottom, full]);
   return size;
 }

@@ -19,6 +19,7 @@ import {
   fromServerFields,
   placeProblem,
   toInput,
+  valuesFrom,
   type ChartFormValues,
   type FieldErrors,
   type TextProblem,
@@ -120,18 +121,10 @@ export function ChartForm({ bandId, initial, editing }: Props) {
 
   function loadCurrent(current: ConflictVersion) {
     setEarlier(values.sourceText);
-    setValues({
-      title: current.title,
-      composer: current.composer,
-      key: current.concertKey,
-      meter: current.meter,
-      tempo: current.tempo === null ? "" : String(current.tempo),
-      feel: current.feel,
-      sourceText: current.sourceText,
-      message: values.message,
-    });
+    setValues({ ...valuesFrom(current), message: values.message });
     setBaseRevision(current.revision);
     setConflict(null);
+    setFailure(null);
     setErrors({});
     setServerProblem(null);
   }

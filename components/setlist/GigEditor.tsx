@@ -27,10 +27,31 @@ interface Props {
   openHref?: (e: SetlistEntry) => string;
 }
 
-export function GigEditor({ bandId, setlist, initial, charts, openHref }: Props) {
+/**
+ * Keeps the editor's draft while the leader is editing, and starts it afresh from the book when a
+ * newer revision arrives (their own save, or someone else's) and nothing is unsaved.
+ */
+export function GigEditorHost(props: Props) {
+  const [dirty, setDirty] = useState(false);
+  const [seen, setSeen] = useState(props.setlist.revision);
+  const [generation, setGeneration] = useState(0);
+  const [note, setNote] = useState("");
+  if (props.setlist.revision !== seen && !dirty) {
+    setSeen(props.setlist.revision);
+    setGeneration((g) => g + 1);
+  }
+  return <GigEditor key={generation} {...props} note={note} onNote={setNote} onDirty={setDirty} />;
+}
+
+function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, onDirty }: Props & { note: string; onNote: (n: string) => void; onDirty: (d: boolean) => void }) {
   const [draft, setDraft] = useState<Draft>({ name: setlist.name, startsAt: setlist.startsAt, venue: setlist.venue, notes: setlist.notes, entries: initial });
   const [extraSets, setExtraSets] = useState(0);
-  const [dirty, setDirty] = useState(false);
+  const [dirty, setDirtyHere] = useState(false);
+  const setDirty = (d: boolean) => {
+    setDirtyHere(d);
+    onDirty(d);
+    if (d) onNote("");
+  };
   const [saving, setSaving] = useState(false);
   const [outcome, setOutcome] = useState<SaveOutcome | null>(null);
   const [adding, setAdding] = useState<Record<number, string>>({});
@@ -67,7 +88,10 @@ export function GigEditor({ bandId, setlist, initial, charts, openHref }: Props)
     try {
       const r = await saveSetlist(bandId, setlist.id, setlist.revision, draft, draft.entries);
       setOutcome(r);
-      if (r.status === "saved" || r.status === "queued") setDirty(false);
+      if (r.status === "saved" || r.status === "queued") {
+        onNote(r.status === "saved" ? "Saved." : "Saved on this device; it goes to the band when you have signal.");
+        setDirty(false);
+      }
     } finally {
       setSaving(false);
     }
@@ -134,7 +158,7 @@ export function GigEditor({ bandId, setlist, initial, charts, openHref }: Props)
           {saving ? "Saving…" : "Save set list"}
         </Button>
         <span aria-live="polite" className="text-sm" data-testid="save-state">
-          {outcome?.status === "saved" ? "Saved." : outcome?.status === "queued" ? "Saved on this device; it goes to the band when you have signal." : dirty ? "Unsaved changes." : ""}
+          {dirty ? "Unsaved changes." : note}
         </span>
       </div>
       {problems.length > 0 ? (

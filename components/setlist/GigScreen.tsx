@@ -14,7 +14,7 @@ import { useBandRoute } from "@/lib/offline/route";
 import { groupBySet, type SetlistEntry } from "@/lib/setlist";
 import { canEditSetlists, deleteSetlistEverywhere, newId, saveSetlist, useBookCharts, useMyMembership, useSetlist } from "./data";
 import { gigWhen } from "./datetime";
-import { GigEditor } from "./GigEditor";
+import { GigEditorHost } from "./GigEditor";
 import { SetTunes, type TuneInfo } from "./SetTunes";
 import { SharePanel } from "./SharePanel";
 
@@ -88,7 +88,7 @@ export function GigScreen() {
       </div>
 
       {editable ? (
-        <GigEditor key={`${setlist.id}:${setlist.revision}`} bandId={bandId} setlist={setlist} initial={entries} charts={charts} openHref={openHref} />
+        <GigEditorHost key={setlist.id} bandId={bandId} setlist={setlist} initial={entries} charts={charts} openHref={openHref} />
       ) : (
         <ReadOnlySets entries={entries} tunes={tunes} openHref={openHref} />
       )}

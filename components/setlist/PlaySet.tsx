@@ -55,7 +55,7 @@ export function PlaySet() {
             key: e.key,
             intro: e.intro ?? undefined,
             label: tuneHeading(e, c.title, c.body.key, c.body.tempo),
-            next: nextTitle ? `Next: ${nextTitle}` : "Last tune of the night",
+            next: nextTitle ? `Next: ${nextTitle}` : undefined,
             marks: marks.get(e.chartId),
           },
         ];

@@ -13,7 +13,7 @@ import {
   type EndingKind,
   type SetlistEntry,
 } from "@/lib/setlist";
-import { analyseIntro } from "./intro-fit";
+import { analyseInKey, analyseIntro } from "./intro-fit";
 
 const MAJOR_KEYS = ["C", "Db", "D", "Eb", "E", "F", "F#", "Gb", "G", "Ab", "A", "Bb", "B"];
 const MINOR_KEYS = ["Cm", "C#m", "Dm", "Ebm", "Em", "Fm", "F#m", "Gm", "G#m", "Am", "Bbm", "Bm"];
@@ -52,7 +52,7 @@ export function TuneArrangement({ entry, chart, onChange }: { entry: SetlistEntr
   const setIntro = (patch: Partial<IntroChoice> | null) =>
     onChange({ ...entry, intro: patch === null ? null : ({ ...(intro ?? { kind: "dominant-pedal" }), ...patch } as IntroChoice) });
   const ending = entry.ending;
-  const fit = chart && intro && !check.issues.some((i) => i.field.startsWith("intro")) ? analyseIntro(chart, intro) : null;
+  const fit = chart && intro && !check.issues.some((i) => i.field.startsWith("intro")) ? analyseInKey(chart, entry.key, intro) : null;
 
   return (
     <div className="grid gap-4 sm:grid-cols-2" data-testid="tune-arrangement">

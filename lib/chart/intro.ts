@@ -1,6 +1,6 @@
 // Intros: the seven kinds a band starts a tune with, each with a plain explanation and a fit analysis.
 import {
-  chordPitchClasses, dominantOf, formatChord, isDominantChord, isMinorChord, keyScale, parseChord, parseKey,
+  ChordSymbolError, chordPitchClasses, dominantOf, formatChord, isDominantChord, isMinorChord, keyScale, parseChord, parseKey,
   qualityOf, tritoneSubstitute, turnaround, twoFiveInto, type ChordTones,
 } from "@/lib/music";
 import { Note } from "tonal";
@@ -25,20 +25,19 @@ function fitting(top: TopAnalysis, chart: Chart, except: IntroKind): IntroKind[]
   return order.filter((k) => k !== except);
 }
 
-/** Spread chord cells over `bars` bars: fewer bars → several chords a bar; more → each chord longer. */
-function spread(cells: string[], bars: number, meter: Meter): Bar[] {
-  if (bars >= cells.length) {
-    const per = Math.floor(bars / cells.length);
-    const out: Bar[] = [];
+/** Spread chord cells over `bars` bars: fewer bars → several chords a bar; more → chords held longer (`%`). */
+function spread(cells: string[], asked: number, meter: Meter): Bar[] {
+  const n = cells.length;
+  const bars = Math.max(asked, Math.ceil(n / meter.beats)); // never more chords than beats in a bar
+  const out: Bar[] = [];
+  if (bars >= n) {
     cells.forEach((c, i) => {
-      const count = i === cells.length - 1 ? bars - per * (cells.length - 1) : per;
+      const count = Math.floor(((i + 1) * bars) / n) - Math.floor((i * bars) / n);
       for (let k = 0; k < count; k++) out.push(k === 0 ? barOf([c], meter) : { ...blankBar(), simile: true });
     });
     return out;
   }
-  const perBar = Math.ceil(cells.length / bars);
-  const out: Bar[] = [];
-  for (let i = 0; i < cells.length; i += perBar) out.push(barOf(cells.slice(i, i + perBar), meter));
+  for (let i = 0; i < bars; i++) out.push(barOf(cells.slice(Math.floor((i * n) / bars), Math.floor(((i + 1) * n) / bars)), meter));
   return out;
 }
 
@@ -118,13 +117,24 @@ function result(kind: IntroKind, bars: Bar[], fits: boolean, advice: string, sug
   return { kind, bars, fits, advice, suggestions: fits ? [] : suggestions, ...extra };
 }
 
-export function generateIntro(chart: Chart, opts: IntroOptions): IntroResult {
+const clamp = (n: number | undefined, lo: number, hi: number) => (n === undefined || !Number.isFinite(n) ? undefined : Math.min(hi, Math.max(lo, Math.round(n))));
+
+export function generateIntro(chart: Chart, options: IntroOptions): IntroResult {
+  const opts: IntroOptions = { ...options, bars: clamp(options.bars, 1, 64), repeats: clamp(options.repeats, 1, 16) };
   const { kind } = opts;
   const meter = chart.meter;
   const top = analyzeTop(chart);
   const target = firstChord(chart);
   const tritone = opts.tritoneSub ?? false;
-  const choice: IntroChoice = { kind, ...(opts.bars ? { bars: opts.bars } : {}), ...(opts.repeats ? { repeats: opts.repeats } : {}), ...(tritone ? { tritoneSub: true } : {}) };
+  const base: IntroChoice = { kind, ...(tritone ? { tritoneSub: true } : {}) };
+  // The options as played, defaults filled in, so a set list can store exactly this intro.
+  const chosen = (bars: number | undefined, repeats: number, extra: Partial<IntroChoice> = {}): IntroChoice => ({
+    ...base,
+    ...(bars !== undefined ? { bars } : {}),
+    repeats,
+    ...extra,
+  });
+  const choice = chosen(opts.bars, opts.repeats ?? 1);
   const others = fitting(top, chart, kind);
   if (!target && kind !== "composed" && kind !== "solo-chorus") {
     return result(kind, [], false, "The form has no chords to lead into, so this intro can't be built.", chart.intro ? ["composed"] : ["solo-chorus"], { choice });
@@ -137,9 +147,10 @@ export function generateIntro(chart: Chart, opts: IntroOptions): IntroResult {
       const v = dominantOf(tgt.root);
       const pedal = dominantOf(tgt.root, "7sus4");
       const resolveTo = sub(v, tritone);
-      const bars = [...Array.from({ length: n - 1 }, () => barOf([pedal], meter)), barOf([pedal, resolveTo], meter)];
+      const last = meter.beats >= 2 ? [barOf([pedal, resolveTo], meter)] : [barOf([pedal], meter), barOf([resolveTo], meter)];
+      const bars = [...Array.from({ length: n - 1 }, () => barOf([pedal], meter)), ...last];
       const advice = `A pedal on ${v.replace(/7$/, "")}: ${pedal} for ${n} bar${n > 1 ? "s" : ""}, opening to ${resolveTo} at the end and resolving to ${topName} at the top.`;
-      return result(kind, withRepeats(bars, opts.repeats ?? 1), true, advice, others, { choice });
+      return result(kind, withRepeats(bars, opts.repeats ?? 1), true, advice, others, { choice: chosen(n, opts.repeats ?? 1) });
     }
     case "last-bars": {
       const n = opts.bars ?? 8;
@@ -150,15 +161,23 @@ export function generateIntro(chart: Chart, opts: IntroOptions): IntroResult {
       const advice = fits
         ? `The last ${n} bars of the form${turned ? `, with the last bar turned into ${turned} to lead back to ${topName}` : ", whose last bar already leads back to the top"}.`
         : `The form is only ${pass.length} bars, shorter than ${n}: this plays all of it. Take ${Math.min(4, pass.length)} bars or a solo chorus instead.`;
-      return result(kind, withRepeats(bars, opts.repeats ?? 1), fits, advice, ["solo-chorus", ...others.filter((k) => k !== "solo-chorus")], { choice: { ...choice, bars: n } });
+      return result(kind, withRepeats(bars, opts.repeats ?? 1), fits, advice, ["solo-chorus", ...others.filter((k) => k !== "solo-chorus")], { choice: chosen(n, opts.repeats ?? 1) });
     }
     case "vamp": {
       const given = opts.vamp ? ([...opts.vamp] as [string, string]) : null;
-      const pair = (given ?? suggestedVamp(tgt, chart)).map((s) => formatChord(parseChord(s))) as [string, string];
+      const better = suggestedVamp(tgt, chart);
+      let pair: [string, string];
+      try {
+        pair = (given ?? better).map((s) => formatChord(parseChord(s))) as [string, string];
+      } catch (e) {
+        // An unreadable chord is never guessed at: no bars, and the reason in the advice.
+        if (!(e instanceof ChordSymbolError)) throw e;
+        return result(kind, [], false, `${e.message}. Try ${better.join(" | ")}.`, others, { choice: chosen(opts.bars ?? 2, opts.repeats ?? 2, { vamp: better }) });
+      }
       const played = pair.map((s) => (tritone && dominantInto(s, tgt) ? tritoneSubstitute(s) : s));
       const n = opts.bars ?? 2;
-      const cells = n === 1 ? [played.join(" ")] : Array.from({ length: n }, (_, i) => played[i % 2]!);
-      const bars = n === 1 ? [barOf(played, meter)] : cells.map((c) => barOf([c], meter));
+      const cells = Array.from({ length: Math.max(n, 2) }, (_, i) => played[i % 2]!);
+      const bars = n === 1 && meter.beats >= 2 ? [barOf(played, meter)] : cells.map((c) => barOf([c], meter));
       // A dominant of bar 1 may bring outside notes (its tensions); any other chord with two or more
       // notes foreign to the key and to bar 1 pulls the band toward another key.
       const clashes = played
@@ -166,12 +185,11 @@ export function generateIntro(chart: Chart, opts: IntroOptions): IntroResult {
         .map((s) => ({ s, foreign: foreignNotes(s, chart, tgt) }))
         .filter((x) => x.foreign.length >= 2);
       const fits = clashes.length === 0;
-      const better = suggestedVamp(tgt, chart);
       const alternative = better.join(" | ") === pair.join(" | ") ? "" : `${better.join(" | ")} or `;
       const advice = fits
         ? `A two-chord vamp, ${played.join(" | ")}, ${opts.repeats && opts.repeats > 2 ? `${opts.repeats} times` : "until the cue"}, then ${topName} at the top.`
         : `The vamp ${played.join(" | ")} clashes with ${topName} in bar 1: ${clashes.map((c) => `${c.s} brings ${c.foreign.join(", ")}`).join("; ")}, notes foreign to ${chart.key} and to bar 1. Try ${alternative}a ii–V into bar 1.`;
-      return result(kind, withRepeats(bars, opts.repeats ?? 2), fits, advice, others, { choice: { ...choice, vamp: pair }, vamp: pair });
+      return result(kind, withRepeats(bars, opts.repeats ?? 2), fits, advice, others, { choice: chosen(n, opts.repeats ?? 2, { vamp: pair }), vamp: pair });
     }
     case "solo-chorus": {
       const choruses = opts.repeats ?? 1;
@@ -180,8 +198,13 @@ export function generateIntro(chart: Chart, opts: IntroOptions): IntroResult {
       chart.sections.forEach((s) => s.bars.forEach((_, i) => labels.push(i === 0 ? s.label : null)));
       const { bars } = target ? turnBack(form, tgt, meter, tritone) : { bars: form };
       const all = Array.from({ length: choruses }, () => bars).flat();
-      const advice = `A solo chorus: ${choruses > 1 ? `${choruses} times` : "once"} through the ${form.length}-bar form over the changes before the head comes in${chart.intro ? " (this tune also has a composed intro)" : ""}.`;
-      return result(kind, all, target !== null, target ? advice : "The form has no chords to solo over.", others, { choice, labels: Array.from({ length: choruses }, () => labels).flat() });
+      const seconds = chart.tempo ? Math.round((all.length * chart.meter.beats * 60) / chart.tempo) : null;
+      const length = seconds ? ` (about ${seconds} seconds at ${chart.tempo})` : "";
+      const advice = `A solo chorus: ${choruses > 1 ? `${choruses} times` : "once"} through the ${form.length}-bar form over the changes before the head comes in${length}${chart.intro ? "; this tune also has a composed intro" : ""}.`;
+      return result(kind, all, target !== null, target ? advice : "The form has no chords to solo over.", others, {
+        choice: chosen(undefined, choruses),
+        labels: Array.from({ length: choruses }, () => labels).flat(),
+      });
     }
     case "turnaround": {
       const variant = opts.variant ?? "I-vi-ii-V";
@@ -191,14 +214,14 @@ export function generateIntro(chart: Chart, opts: IntroOptions): IntroResult {
       const advice = top.startsOnTonic
         ? `A ${variant.replace(/-/g, "–")} turnaround, ${chords.join(" ")}, leading to ${topName} at the top.`
         : `A ${variant.replace(/-/g, "–")} turnaround lands on ${parseKey(chart.key).tonic}, but this tune starts on ${topName} (${top.numeral}), not the tonic. A ii–V into ${topName} or a dominant pedal fits better.`;
-      return result(kind, withRepeats(bars, opts.repeats ?? 2), top.startsOnTonic, advice, others, { choice: { ...choice, variant } });
+      return result(kind, withRepeats(bars, opts.repeats ?? 2), top.startsOnTonic, advice, others, { choice: chosen(n, opts.repeats ?? 2, { variant }) });
     }
     case "two-five": {
       const pair = twoFiveInto(formatChord({ ...tgt, bass: null }), tritone);
       const n = opts.bars ?? 2;
       const bars = spread(pair, n, meter);
       const advice = `${isMinorChord(tgt) ? "A minor iiø–V" : "A ii–V"} into ${topName}: ${pair.join(" | ")}.`;
-      return result(kind, withRepeats(bars, opts.repeats ?? 1), true, advice, others, { choice });
+      return result(kind, withRepeats(bars, opts.repeats ?? 1), true, advice, others, { choice: chosen(n, opts.repeats ?? 1) });
     }
     case "composed": {
       if (!chart.intro) {

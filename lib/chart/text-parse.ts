@@ -1,87 +1,22 @@
 // Chart text → chart model. The format is described in docs/chart-text.md.
 // Two passes: metadata first (so `time:` may come anywhere), then sections, bars and melody lines.
-import { ChordSymbolError, formatChord, parseChord, readKey } from "@/lib/music";
+import { ChordSymbolError, formatChord, parseChord } from "@/lib/music";
 import { ChartSchema, type Bar, type Chart, type Meter, type Section } from "./model";
 import { scanBarLine, type BarToken } from "./text-scan";
 import { barQuarters, beatWords, noteQuarters, readMelodyNote } from "./melody";
 import { ChartTextError } from "./text-error";
+import { METADATA_FIELDS, readField, type Field, type Meta } from "./text-fields";
 
-export { ChartTextError };
+export { ChartTextError, METADATA_FIELDS };
 
-export const METADATA_FIELDS = ["title", "composer", "key", "time", "tempo", "feel"] as const;
-type Field = (typeof METADATA_FIELDS)[number];
-
-const HEADER_RE = /^(\s*)([A-Za-z][\w '’&.\-]{0,60}?)\s*:(?!\|)(.*)$/;
+// `Name:` starts a line; a colon right before `|` is a repeat end (`C7:|`) unless it is `Name:|:`.
+const HEADER_RE = /^(\s*)([A-Za-z][\w '’&.()\-]{0,60}?)\s*:(?!\|(?!:))(.*)$/;
 
 /** Where a comment starts: `#` at the start of a line or after a space, followed by a space or the end. */
 function stripComment(line: string): string {
   if (/^\s*#/.test(line)) return "";
   const m = /\s#(?=\s|$)/.exec(line);
   return m ? line.slice(0, m.index) : line;
-}
-
-interface Meta {
-  title?: string;
-  composer?: string;
-  key?: string;
-  meter?: Meter;
-  tempo?: number | null;
-  feel?: string;
-}
-
-function readMeter(text: string): Meter | null {
-  const t = text.trim().toLowerCase();
-  if (t === "c" || t === "common") return { beats: 4, unit: 4 };
-  if (t === "cut" || t === "¢") return { beats: 2, unit: 2 };
-  const m = /^(\d{1,2})\s*\/\s*(\d{1,2})$/.exec(t);
-  if (!m) return null;
-  const beats = Number(m[1]);
-  const unit = Number(m[2]);
-  if (beats < 1 || beats > 16 || (unit !== 2 && unit !== 4 && unit !== 8)) return null;
-  return { beats, unit };
-}
-
-function readField(field: Field, value: string, line: number, column: number, meta: Meta): void {
-  const fail = (msg: string): never => {
-    throw new ChartTextError(line, column, msg);
-  };
-  switch (field) {
-    case "title":
-      if (!value) fail("The title is empty: write it after `title:`");
-      if (value.length > 200) fail("The title is too long (200 characters at most)");
-      meta.title = value;
-      return;
-    case "composer":
-      if (value.length > 200) fail("The composer line is too long (200 characters at most)");
-      meta.composer = value;
-      return;
-    case "key": {
-      const k = readKey(value);
-      if (!k) fail(`"${value}" is not a key: write a major key like Eb or F#, or a minor key like Cm`);
-      meta.key = k!.name;
-      return;
-    }
-    case "time": {
-      const m = readMeter(value);
-      if (!m) fail(`"${value}" is not a time signature we read: write it like 4/4, 3/4, 6/8 or 12/8 (up to 16 beats)`);
-      meta.meter = m!;
-      return;
-    }
-    case "tempo": {
-      if (!value) {
-        meta.tempo = null;
-        return;
-      }
-      const m = /^(\d{1,3})(?:\s*bpm)?$/i.exec(value);
-      const n = m ? Number(m[1]) : NaN;
-      if (!(n >= 20 && n <= 400)) fail(`"${value}" is not a tempo: write beats per minute between 20 and 400, like 160`);
-      meta.tempo = n;
-      return;
-    }
-    case "feel":
-      if (value.length > 60) fail("The feel is too long (60 characters at most)");
-      meta.feel = value;
-  }
 }
 
 interface PendingBar {

@@ -72,7 +72,7 @@ function readAlterations(text: string, symbol: string): Alteration[] {
 function extractParenAlterations(text: string, symbol: string): { rest: string; alterations: Alteration[] } {
   const alterations: Alteration[] = [];
   const rest = text.replace(/\(([^()]*)\)/g, (whole, inner: string) => {
-    const compact = inner.replace(/[,\s]/g, "");
+    const compact = inner.replace(/[,\s/]/g, "");
     if (compact.length > 0 && ALTERATIONS_ONLY.test(compact)) {
       alterations.push(...readAlterations(compact, symbol));
       return "";
@@ -123,7 +123,7 @@ function canonical(quality: Quality, alts: Alteration[], symbol: string): { qual
     if (a.degree === 5 && !quality.intervals.includes("5P")) {
       throw new ChordSymbolError(symbol, `this chord has no natural 5th to alter`);
     }
-    if (a.degree !== 5 && quality.top < 7) {
+    if (a.degree !== 5 && quality.top < 7 && !quality.intervals.includes("6M")) {
       throw new ChordSymbolError(symbol, `an altered ${a.degree}th needs a 7th chord, like 7(${a.alter < 0 ? "b" : "#"}${a.degree})`);
     }
     if (a.degree === 13 && quality.intervals.includes("13M")) {

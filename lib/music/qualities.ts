@@ -12,7 +12,7 @@ export interface Quality {
   family: "major" | "minor" | "diminished" | "half-diminished" | "augmented" | "suspended" | "power";
   /** Has a minor 7th over a major 3rd (or a sus4): the chord acts as a dominant. */
   dominant: boolean;
-  /** The degree that names the chord (7, 9, 11, 13), or 0 for triads and sixths; an alteration may not alter it. */
+  /** The degree that names the chord (7, 9, 11, 13; 9 for 6/9), or 0 for triads and sixths; an alteration may not alter it. */
   top: number;
   /** Other spellings charts use for this quality. */
   aliases: string[];
@@ -37,14 +37,14 @@ export const QUALITIES: Quality[] = [
   Q("sus4", "1P 4P 5P", "suspended-fourth", "suspended", 0, ["sus"]),
   Q("5", "1P 5P", "power", "power", 0),
   Q("6", "1P 3M 5P 6M", "major-sixth", "major", 0, ["M6", "maj6"]),
-  Q("6/9", "1P 3M 5P 6M 9M", "major-sixth", "major", 0, ["69", "6add9", "6(add9)", "M6/9", "M69"]),
+  Q("6/9", "1P 3M 5P 6M 9M", "major-sixth", "major", 9, ["69", "6add9", "6(add9)", "M6/9", "M69"]),
   Q("add9", "1P 3M 5P 9M", "major", "major", 0, ["(add9)", "add2", "Madd9"]),
   Q("m6", "1P 3m 5P 6M", "minor-sixth", "minor", 0, ["min6", "mi6", "-6"]),
-  Q("m6/9", "1P 3m 5P 6M 9M", "minor-sixth", "minor", 0, ["m69", "min6/9", "-6/9", "-69", "mi6/9"]),
+  Q("m6/9", "1P 3m 5P 6M 9M", "minor-sixth", "minor", 9, ["m69", "min6/9", "-6/9", "-69", "mi6/9"]),
   Q("madd9", "1P 3m 5P 9M", "minor", "minor", 0, ["m(add9)", "-add9", "-(add9)", "minadd9", "miadd9"]),
-  Q("maj7", "1P 3M 5P 7M", "major-seventh", "major", 7, ["M7", "Maj7", "ma7", "Δ", "Δ7", "^7", "^", "j7"]),
-  Q("maj9", "1P 3M 5P 7M 9M", "major-ninth", "major", 9, ["M9", "Maj9", "ma9", "Δ9", "^9"]),
-  Q("maj13", "1P 3M 5P 7M 9M 13M", "major-13th", "major", 13, ["M13", "Maj13", "ma13", "Δ13", "^13"]),
+  Q("maj7", "1P 3M 5P 7M", "major-seventh", "major", 7, ["M7", "Maj7", "MA7", "Ma7", "ma7", "Δ", "Δ7", "^7", "^", "j7"]),
+  Q("maj9", "1P 3M 5P 7M 9M", "major-ninth", "major", 9, ["M9", "Maj9", "MA9", "Ma9", "ma9", "Δ9", "^9"]),
+  Q("maj13", "1P 3M 5P 7M 9M 13M", "major-13th", "major", 13, ["M13", "Maj13", "MA13", "Ma13", "ma13", "Δ13", "^13"]),
   Q("m7", "1P 3m 5P 7m", "minor-seventh", "minor", 7, ["min7", "mi7", "-7"]),
   Q("m9", "1P 3m 5P 7m 9M", "minor-ninth", "minor", 9, ["min9", "mi9", "-9"]),
   Q("m11", "1P 3m 5P 7m 9M 11P", "minor-11th", "minor", 11, ["min11", "mi11", "-11"]),

@@ -152,10 +152,12 @@ export class SyncEngine {
   }
 
   private async askPersist(): Promise<void> {
-    if (this.persistAsked || typeof navigator === "undefined" || !navigator.storage?.persist) return;
+    // `persist` exists in pages only (not in the service worker).
+    const storage = typeof navigator === "undefined" ? undefined : (navigator.storage as (StorageManager & { persist?: () => Promise<boolean> }) | undefined);
+    if (this.persistAsked || !storage?.persist) return;
     this.persistAsked = true;
     try {
-      if (!(await navigator.storage.persisted())) await navigator.storage.persist();
+      if (!(await storage.persisted())) await storage.persist();
     } catch {
       // The browser decides; the book still works without the promise of persistence.
     }

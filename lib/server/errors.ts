@@ -10,7 +10,8 @@ export type ErrorCode =
   | "unprocessable"
   | "rate_limited"
   | "payment_required"
-  | "gone";
+  | "gone"
+  | "unavailable";
 
 const STATUS: Record<ErrorCode, number> = {
   bad_request: 400,
@@ -24,6 +25,7 @@ const STATUS: Record<ErrorCode, number> = {
   unprocessable: 422,
   rate_limited: 429,
   gone: 410,
+  unavailable: 503,
 };
 
 export interface FieldIssue {

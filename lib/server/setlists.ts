@@ -6,22 +6,23 @@ import type { Database, Membership, SetlistEntryRow, SetlistRow } from "@/db/sch
 import { ChartSchema, type Chart } from "@/lib/chart/model";
 import {
   checkArrangement,
-  EndingChoiceSchema,
   SetlistCreateSchema,
   SetlistDuplicateSchema,
   SetlistUpdateSchema,
   type Setlist,
   type SetlistEntry,
 } from "@/lib/setlist";
-import { IntroChoiceSchema } from "@/lib/chart/model";
 import { requireMember, type Actor } from "./access";
 import { recordChange } from "./changes";
 import { AppError, notFound, type FieldIssue } from "./errors";
 import { parseInput } from "./input";
+import { loadSetlists, parseJson } from "./setlist-rows";
 import { activeShareUsers, sharedSetlistIds } from "./shares";
 import { newId, nowIso } from "./tokens";
 
 type Db = Kysely<Database> | Transaction<Database>;
+
+export { loadSetlists, toSetlist } from "./setlist-rows";
 
 export interface SetlistSummary {
   id: string;
@@ -32,60 +33,6 @@ export interface SetlistSummary {
   sets: number;
   revision: number;
   updatedAt: string;
-}
-
-function parseJson<T>(text: string | null, schema: { safeParse(v: unknown): { success: true; data: T } | { success: false } }): T | null {
-  if (!text) return null;
-  try {
-    const r = schema.safeParse(JSON.parse(text));
-    return r.success ? r.data : null;
-  } catch {
-    return null;
-  }
-}
-
-function toEntry(r: SetlistEntryRow): SetlistEntry & { setlistId: string } {
-  return {
-    id: r.id,
-    setlistId: r.setlist_id,
-    chartId: r.chart_id,
-    setNumber: r.set_number,
-    position: r.position,
-    key: r.key,
-    tempo: r.tempo,
-    intro: parseJson(r.intro_json, IntroChoiceSchema),
-    ending: parseJson(r.ending, EndingChoiceSchema),
-    soloOrder: r.solo_order,
-    notes: r.notes,
-  };
-}
-
-export function toSetlist(row: SetlistRow, entries: SetlistEntryRow[]): Setlist {
-  return {
-    id: row.id,
-    bandId: row.band_id,
-    name: row.name,
-    startsAt: row.starts_at,
-    venue: row.venue,
-    notes: row.notes,
-    revision: row.revision,
-    updatedBy: row.updated_by,
-    updatedAt: row.updated_at,
-    entries: entries
-      .map(toEntry)
-      .sort((a, b) => a.setNumber - b.setNumber || a.position - b.position),
-  };
-}
-
-/** Set lists with their entries, tombstones included (the caller decides what a deleted row means). */
-export async function loadSetlists(db: Db, bandId: string, ids: readonly string[]): Promise<Map<string, { row: SetlistRow; setlist: Setlist }>> {
-  const out = new Map<string, { row: SetlistRow; setlist: Setlist }>();
-  if (ids.length === 0) return out;
-  const rows = await db.selectFrom("setlists").selectAll().where("band_id", "=", bandId).where("id", "in", [...ids]).execute();
-  if (rows.length === 0) return out;
-  const entries = await db.selectFrom("setlist_entries").selectAll().where("setlist_id", "in", rows.map((r) => r.id)).execute();
-  for (const row of rows) out.set(row.id, { row, setlist: toSetlist(row, entries.filter((e) => e.setlist_id === row.id)) });
-  return out;
 }
 
 async function loadOne(db: Db, bandId: string, id: string): Promise<{ row: SetlistRow; setlist: Setlist } | null> {

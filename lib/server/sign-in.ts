@@ -66,7 +66,12 @@ export async function requestSignInLink(
   const cb = safeCallback(callbackUrl);
   if (cb !== "/") params.set("callbackUrl", cb);
   const link = appUrl(`/signin/link?${params.toString()}`);
-  await sendMail(signInLinkMail({ to: email, link, minutes: LINK_MINUTES }));
+  try {
+    await sendMail(signInLinkMail({ to: email, link, minutes: LINK_MINUTES }));
+  } catch (err) {
+    console.error("sign-in link mail failed", err);
+    throw new AppError("unavailable", "The sign-in e-mail could not be sent just now. Try again in a minute, or sign in with your password.");
+  }
   return { link };
 }
 

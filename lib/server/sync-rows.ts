@@ -32,10 +32,11 @@ export async function loadCharts(db: Kysely<Database>, bandId: string, ids: stri
       "c.id", "c.band_id", "c.title", "c.composer", "c.concert_key", "c.meter", "c.tempo", "c.feel", "c.body_json",
       "c.source_text", "c.revision", "c.updated_at", "c.updated_by", "c.deleted_at", "u.name as updated_by_name",
     ])
-    .where("c.band_id", "=", bandId)
     .where("c.id", "in", ids)
     .where("c.deleted_at", "is", null)
-    .execute();
+    .execute()
+    // The band is checked here, not in SQL: a band_id condition makes SQLite walk the band's whole book.
+    .then((all) => all.filter((c) => c.band_id === bandId));
   if (rows.length === 0) return out;
   const revs = await db
     .selectFrom("chart_revisions as r")

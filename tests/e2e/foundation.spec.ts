@@ -39,6 +39,8 @@ async function openDemoLibrary(page: Page, who = demoLeader()): Promise<string> 
 }
 
 test("a new leader starts a band and invites a player, who reads the book but cannot change it", async ({ browser }) => {
+  // The whole journey of two people through several screens: longer than one screen's test.
+  test.setTimeout(180_000);
   const leader = newPerson("Leader");
   const player = newPerson("Player");
   const lp = await freshPage(browser);
@@ -53,9 +55,10 @@ test("a new leader starts a band and invites a player, who reads the book but ca
   await form.gotoNew(bandId);
   await form.fill({ title: "Salt Road Shuffle", composer: "The band", key: "F", tempo: "112", feel: "shuffle", text: "A:\n| F7 | Bb7 | F7 | C7 |\n", message: "first version" });
   await form.save.click();
-  await lp.waitForURL(new RegExp(`/bands/${bandId}/charts/[^/]+$`), { timeout: 30_000 });
+  await lp.waitForURL(new RegExp(`/bands/${bandId}/charts/(?!new$)[^/]+$`), { timeout: 30_000 });
   const chartId = decodeURIComponent(new URL(lp.url()).pathname.split("/")[4] ?? "");
   expect(chartId).not.toBe("");
+  expect((await lp.request.get(`/api/bands/${bandId}/charts/${chartId}`)).status(), "the chart reached the server").toBe(200);
 
   const members = new MembersPage(lp);
   await members.goto(bandId);
@@ -80,7 +83,7 @@ test("a new leader starts a band and invites a player, who reads the book but ca
 
   // Hidden controls are not the lock: the server refuses the player's edit itself.
   const res = await pp.request.put(`/api/bands/${bandId}/charts/${chartId}`, {
-    data: { title: "Salt Road Shuffle", composer: "", key: "F", meter: "4/4", tempo: 112, feel: "shuffle", sourceText: "A:\n| F7 | F7 | F7 | F7 |\n", message: "", baseRevision: 1 },
+    data: { title: "Salt Road Shuffle", composer: "", key: "F", meter: "4/4", tempo: 112, feel: "shuffle", sourceText: "title: Salt Road Shuffle\nkey: F\n\nA:\n| F7 | F7 | F7 | F7 |\n", message: "", baseRevision: 1 },
   });
   expect(res.status()).toBe(403);
   const body = (await res.json()) as { error?: { message?: string } };
@@ -90,6 +93,15 @@ test("a new leader starts a band and invites a player, who reads the book but ca
   await pp.goto(`/bands/${bandId}/members`);
   await expect(pp.getByTestId("members-refused")).toBeVisible();
   await expect(pp.getByTestId("invite-form")).toHaveCount(0);
+
+  // A change by the leader shows up in the player's library as updated since they last looked.
+  const fix = await lp.request.put(`/api/bands/${bandId}/charts/${chartId}`, {
+    data: { title: "Salt Road Shuffle", composer: "The band", key: "F", meter: "4/4", tempo: 104, feel: "shuffle", sourceText: "title: Salt Road Shuffle\nkey: F\n\nA:\n| F7 | Bb7 | F7 | F7 |\n", message: "bar 4 stays on F7", baseRevision: 1 },
+  });
+  expect(fix.status(), await fix.text()).toBe(200);
+  await library.goto(bandId);
+  await expect(library.row("Salt Road Shuffle")).toHaveAttribute("data-updated", "true", { timeout: 30_000 });
+  await expect(library.row("Salt Road Shuffle").getByTestId("updated-mark")).toBeVisible();
 
   // The leader makes the player an arranger; the player's library then offers editing.
   await members.goto(bandId);
@@ -180,7 +192,9 @@ test("a stale edit meets the newer version, and an earlier revision can be resto
   const chartId = decodeURIComponent(new URL(page.url()).pathname.split("/")[4] ?? "");
   const form = new ChartFormPage(page);
   await expect(form.title).toHaveValue(title);
-  const seeded = await form.tempo.inputValue();
+  // Revision 1 is the seeded chart, whose tempo the demo text states.
+  const seeded = header(DEMO_CHARTS.find((c) => header(c.text, "title") === title)?.text ?? "", "tempo");
+  expect(seeded).not.toBe("");
 
   // Someone else publishes a tempo change while this form is open.
   const got = await page.request.get(`/api/bands/${bandId}/charts/${chartId}`);
@@ -188,7 +202,7 @@ test("a stale edit meets the newer version, and an earlier revision can be resto
   const theirs = await page.request.put(`/api/bands/${bandId}/charts/${chartId}`, {
     data: { title, composer: chart.composer, key: chart.key, meter: chart.meter, tempo: 199, feel: chart.feel, sourceText: chart.sourceText, message: "pushed it", baseRevision: chart.revision },
   });
-  expect(theirs.status()).toBe(200);
+  expect(theirs.status(), await theirs.text()).toBe(200);
 
   await form.tempo.fill("120");
   await form.message.fill("slower for the singer");

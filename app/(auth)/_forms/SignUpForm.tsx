@@ -15,12 +15,15 @@ export function SignUpForm({
   email,
   inviteToken,
   inviteBandId,
+  instrument = "concert",
 }: {
   callbackUrl?: string | null;
   /** Fixed when the form comes from an invite sent to this address. */
   email?: string;
   inviteToken?: string;
   inviteBandId?: string;
+  /** The part to suggest (an invite names one). */
+  instrument?: string;
 }) {
   const next = safePath(callbackUrl);
   const [error, setError] = useState<string | null>(null);
@@ -83,7 +86,7 @@ export function SignUpForm({
         hint={`At least ${PASSWORD_MIN} characters.`}
         error={fields.password}
       />
-      <SelectField label="I read" name="instrument" options={INSTRUMENT_OPTIONS} defaultValue="concert" error={fields.instrument} />
+      <SelectField label="I read" name="instrument" options={INSTRUMENT_OPTIONS} defaultValue={instrument} error={fields.instrument} />
       <Button type="submit" disabled={busy}>
         {busy ? "Creating your account…" : inviteToken ? "Create my account and join" : "Create my account"}
       </Button>

@@ -65,7 +65,7 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
           </Link>
         </p>
       ) : (
-        <SignUpForm email={invite.email} inviteToken={token} inviteBandId={invite.bandId} callbackUrl={here} />
+        <SignUpForm email={invite.email} inviteToken={token} inviteBandId={invite.bandId} instrument={invite.instrument} callbackUrl={here} />
       )}
     </Shell>
   );

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { INTRO_KINDS, analyzeTop, generateIntro, suggestIntros, type Bar } from "@/lib/chart";
+import { INTRO_KINDS, IntroChoiceSchema, analyzeTop, generateIntro, suggestIntros, type Bar } from "@/lib/chart";
 import { AWAY, BLUES, MINOR, ON_TONIC, SHORT, WITH_INTRO } from "./charts";
 
 const symbols = (bars: Bar[]) => bars.map((b) => b.chords.map((c) => c.symbol).join(" "));
@@ -202,5 +202,30 @@ describe("the intro picker", () => {
       if (!r.fits) expect(r.suggestions.length).toBeGreaterThan(0);
       else expect(r.suggestions).toEqual([]);
     }
+  });
+});
+
+describe("the options an intro was built with", () => {
+  it("come back with defaults filled in, and rebuild the same intro", () => {
+    for (const chart of [ON_TONIC, AWAY, MINOR, WITH_INTRO, BLUES, SHORT]) {
+      for (const first of suggestIntros(chart)) {
+        const choice = IntroChoiceSchema.parse(first.choice);
+        expect(choice.kind).toBe(first.kind);
+        expect(generateIntro(chart, choice).bars).toEqual(first.bars);
+      }
+    }
+  });
+
+  it("an unreadable vamp chord gives no bars and names the chord, never a guess", () => {
+    const r = generateIntro(ON_TONIC, { kind: "vamp", vamp: ["Fmaj7", "Gx9"] });
+    expect([r.fits, r.bars]).toEqual([false, []]);
+    expect(r.advice).toMatch(/"Gx9"/);
+  });
+
+  it("keeps lengths in range instead of failing", () => {
+    expect(generateIntro(ON_TONIC, { kind: "dominant-pedal", bars: 0 }).bars).toHaveLength(1);
+    expect(generateIntro(ON_TONIC, { kind: "turnaround", bars: 1 }).bars).toHaveLength(1);
+    expect(generateIntro(WITH_INTRO, { kind: "turnaround", bars: 1 }).bars).toHaveLength(2); // 4 chords need 2 bars of 3/4
+    expect(generateIntro(ON_TONIC, { kind: "turnaround", bars: 3 }).bars.map((b) => b.chords.length)).toEqual([1, 1, 2]);
   });
 });

@@ -1,5 +1,9 @@
 import { describe, expect, it } from "vitest";
-import { arrange, parseChartText, performanceBars, transposeChart, type PerformanceBar } from "@/lib/chart";
+import fc from "fast-check";
+import { Note } from "tonal";
+import { INTRO_KINDS, arrange, parseChartText, performanceBars, transposeChart, type PerformanceBar } from "@/lib/chart";
+import { chordPitchClasses, parseChord } from "@/lib/music";
+import { chartArb } from "./arbitrary";
 import { MINOR, ON_TONIC, SHORT, WITH_INTRO } from "./charts";
 
 const symbols = (bars: PerformanceBar[]) => bars.map((b) => b.chords.map((c) => c.symbol).join(" "));
@@ -89,5 +93,41 @@ describe("a singer's key", () => {
   it("transposes a composed intro with the form", () => {
     const c = parseChartText("title: T\nkey: C\nIntro:\n| Dm7 G7 |\nA:\n| C |");
     expect(transposeChart(c, "D").intro?.bars[0]!.chords.map((x) => x.symbol)).toEqual(["Em7", "A7"]);
+  });
+});
+
+describe("arrangement properties (fast-check)", () => {
+  const instruments = ["concert", "concert-bass", "bb", "eb", "f"];
+  const keys = ["C", "Db", "D", "Eb", "E", "F", "F#", "G", "Ab", "A", "Bb", "B"];
+
+  it("any chart, part, key and intro gives the intro's bars then every bar of the form, spelled without double accidentals", () => {
+    fc.assert(
+      fc.property(chartArb, fc.constantFrom(...instruments), fc.option(fc.constantFrom(...keys), { nil: undefined }), fc.constantFrom(...INTRO_KINDS), (chart, instrument, key, kind) => {
+        const a = arrange(chart, { instrument, ...(key ? { key } : {}), intro: { kind } });
+        const formBars = chart.sections.reduce((n, s) => n + s.bars.length, 0);
+        expect(a.bars.filter((b) => b.part === "form")).toHaveLength(formBars);
+        expect(a.bars.filter((b) => b.part === "intro")).toHaveLength(a.intro?.bars.length ?? 0);
+        expect(a.bars.at(-1)!.barline).toBe("final");
+        for (const b of a.bars) {
+          for (const c of b.chords) {
+            const parsed = parseChord(c.symbol);
+            if (parsed.kind === "chord") expect(Math.abs(Note.get(parsed.root).alt)).toBeLessThanOrEqual(1);
+          }
+        }
+      }),
+      { numRuns: 150 },
+    );
+  });
+
+  it("moving a chart to another key and back gives the same chord pitch classes", () => {
+    fc.assert(
+      fc.property(chartArb, fc.constantFrom(...keys), (chart, key) => {
+        const there = transposeChart(chart, key);
+        const back = transposeChart(there, chart.key);
+        const pcs = (c: typeof chart) => c.sections.flatMap((s) => s.bars.flatMap((b) => b.chords.map((x) => chordPitchClasses(x.symbol).map((p) => Note.chroma(p)))));
+        expect(pcs(back)).toEqual(pcs(chart));
+      }),
+      { numRuns: 150 },
+    );
   });
 });

@@ -104,6 +104,14 @@ describe("more of the format", () => {
     expect(c.sections[1]!.bars.map((b) => b.ending)).toEqual([1, null]);
   });
 
+  it("tells a header followed by a repeat (A:|:) from a chord before a repeat end (G7:|)", () => {
+    const c = chart("A:|: C | F :|\nB (out): | D | G7:| C |");
+    expect(c.sections.map((s) => s.label)).toEqual(["A", "B (out)"]);
+    expect(c.sections[0]!.bars[0]!.repeatStart).toBe(true);
+    expect(c.sections[1]!.bars[1]!.repeatEnd).toBe(true);
+    expect(c.sections[1]!.bars[1]!.chords[0]!.symbol).toBe("G7");
+  });
+
   it("reads bars on the header line, and bars with no header into section A", () => {
     expect(chart("A: | C | F |").sections[0]!.bars).toHaveLength(2);
     expect(chart("| C | F |").sections[0]!.label).toBe("A");
@@ -135,6 +143,7 @@ describe("more of the format", () => {
   it.each([
     ["title: T\nkey: C\nA:\n| Cxyz |", 4, 3, /Can't read the chord "Cxyz"/],
     ["title: T\nkey: H\nA:\n| C |", 2, 1, /"H" is not a key/],
+    ["title: T\nkey: G#\nA:\n| C |", 2, 1, /8 sharps: write it as Ab/], // G# major: 8 sharps (circle of fifths, common practice)
     ["title: T\nkey: C\ntime: 7/5\nA:\n| C |", 3, 1, /time signature/],
     ["title: T\nkey: C\ntempo: fast\nA:\n| C |", 3, 1, /tempo/],
     ["title: T\nkey: C\ntitle: U\nA:\n| C |", 3, 1, /title is given twice/],
@@ -177,5 +186,20 @@ describe("writing chart text", () => {
     const once = serializeChart(chart("A:\n|: C / / G7 | N.C. :|x4\nmelody: | C4:h. r:q | r:w |\n| [1 Dm7 :| [2 G7 ] | C |"));
     expect(serializeChart(parseChartText(once))).toBe(once);
     expect(once).toContain("|: C / / G7 | N.C. :|x4 [1 Dm7 :| [2 G7 ] |\nmelody: | C4:h. r:q | r:w |\n| C |");
+  });
+});
+
+describe("docs/chart-text.md", () => {
+  it("its opening example reads, with composer, intro, melody, endings and a held chord", async () => {
+    const fs = await import("node:fs");
+    const path = await import("node:path");
+    const doc = fs.readFileSync(path.resolve(import.meta.dirname, "../../../docs/chart-text.md"), "utf8");
+    const example = /```\n([\s\S]*?)```/.exec(doc)![1]!;
+    const c = parseChartText(example);
+    expect(c.composer).not.toBe("");
+    expect(c.intro?.bars).toHaveLength(2);
+    expect(c.sections.map((s) => s.label)).toEqual(["A", "B"]);
+    expect(c.sections[0]!.bars[2]!.melody?.map((n) => n.pitch)).toEqual([null, "Ab4", "Ab4"]);
+    expect(c.sections[1]!.bars[0]!.chords.map((x) => x.beats)).toEqual([3, 1]);
   });
 });

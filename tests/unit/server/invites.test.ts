@@ -1,6 +1,6 @@
 // Invites: single-use links that expire, bound to one band and one address, mailed through SMTP
 // (the local mail fake, started here on free ports).
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
 import { startMailFake, type MailFake } from "@/scripts/mail-fake";
@@ -19,6 +19,9 @@ beforeAll(async () => {
   process.env.SMTP_PORT = String(mail.smtpPort);
   process.env.NEXTAUTH_URL = "http://pedalpoint.test:3000";
   db = await freshDb();
+});
+// A new band per test: the free plan counts open invites against its member limit.
+beforeEach(async () => {
   cast = await makeBand(db);
 });
 afterAll(async () => {
@@ -144,6 +147,13 @@ describe("leaders", () => {
     const until = new Date(Date.now() + 7_200_000).toISOString();
     expect((await updateMember(db, band.leader, band.bandId, band.sub.userId, { expiresAt: until })).expiresAt).toBe(until);
     expect((await updateMember(db, band.leader, band.bandId, band.sub.userId, { expiresAt: null })).expiresAt).toBeNull();
+  });
+
+  it("promoting a sub to player ends the time limit on their access", async () => {
+    const band = await makeBand(db);
+    const promoted = await changeRole(db, band.leader, band.bandId, band.sub.userId, "player");
+    expect(promoted.role).toBe("player");
+    expect(promoted.expiresAt).toBeNull();
   });
 
   it("removing a member records a delete change and ends their access", async () => {

@@ -20,6 +20,9 @@ const chart = await import("@/app/api/bands/[bandId]/charts/[chartId]/route");
 const members = await import("@/app/api/bands/[bandId]/members/route");
 const health = await import("@/app/api/health/route");
 const signup = await import("@/app/api/signup/route");
+const member = await import("@/app/api/bands/[bandId]/members/[userId]/route");
+const accept = await import("@/app/api/invites/[token]/accept/route");
+const instrument = await import("@/app/api/me/instrument/route");
 const { ready } = await import("@/db");
 const { makeUser, addMember, chartInput } = await import("./helpers");
 
@@ -118,5 +121,42 @@ describe("routes", () => {
     const asPlayer = await call(members.GET, "GET", { bandId });
     expect(asPlayer.status).toBe(200);
     expect(asPlayer.json.invites).toEqual([]);
+  });
+
+  it("invite accept: the wrong band in the query is 404, the right one joins; PATCH and DELETE members", async () => {
+    actor = leader;
+    const made = await call(members.POST, "POST", { bandId }, { email: "joiner.route@band.test", role: "player", instrument: "bb" });
+    const token = String(made.json.link).split("/invite/")[1] ?? "";
+    const db = await ready();
+    const joiner = await makeUser(db, "Route Joiner", "joiner.route@band.test");
+    actor = joiner;
+    const acceptWith = async (q: string) => {
+      const res = await accept.POST(new Request(`http://localhost/api/invites/${token}/accept${q}`, { method: "POST" }), { params: Promise.resolve({ token }) });
+      return { status: res.status, json: (await res.json()) as { bandId?: string } };
+    };
+    expect((await acceptWith("?bandId=some-other-band")).status).toBe(404);
+    const ok = await acceptWith(`?bandId=${bandId}`);
+    expect(ok.status).toBe(200);
+    expect(ok.json.bandId).toBe(bandId);
+    expect((await acceptWith("")).status).toBe(410);
+    // The new member may not change roles; the leader may.
+    const params = { bandId, userId: joiner.userId };
+    expect((await call(member.PATCH, "PATCH", params, { role: "arranger" })).status).toBe(403);
+    actor = leader;
+    const patched = await call(member.PATCH, "PATCH", params, { role: "arranger" });
+    expect((patched.json.member as { role: string }).role).toBe("arranger");
+    expect((await call(member.PATCH, "PATCH", params, { role: "boss" })).status).toBe(422);
+    expect((await call(member.DELETE, "DELETE", params)).status).toBe(200);
+    expect((await call(member.DELETE, "DELETE", params)).status).toBe(404);
+  });
+
+  it("PUT /api/me/instrument sets my part in a band, and refuses an unknown instrument", async () => {
+    actor = player;
+    const r = await call(instrument.PUT, "PUT", {}, { bandId, instrument: "eb" });
+    expect(r.status).toBe(200);
+    expect(r.json).toEqual({ instrument: "eb", bandId });
+    expect((await call(instrument.PUT, "PUT", {}, { instrument: "kazoo" })).status).toBe(422);
+    actor = outsider;
+    expect((await call(instrument.PUT, "PUT", {}, { bandId, instrument: "eb" })).status).toBe(404);
   });
 });

@@ -1,0 +1,29 @@
+import { describe, expect, it } from "vitest";
+import { chartQuery, parseChartParams } from "@/components/chart/params";
+
+const read = (q: string) => parseChartParams(new URLSearchParams(q));
+
+describe("chart address parameters", () => {
+  it("reads the part, a singer's key and an intro with its options", () => {
+    expect(read("instrument=bb&key=F&intro=vamp&introBars=4&introRepeats=2&vamp=Cm7,F7")).toEqual({
+      instrument: "bb",
+      key: "F",
+      intro: { kind: "vamp", bars: 4, repeats: 2, vamp: ["Cm7", "F7"] },
+    });
+  });
+
+  it("falls back to the defaults for anything it cannot read", () => {
+    expect(read("instrument=kazoo&key=H&intro=fanfare")).toEqual({ instrument: null, key: null, intro: undefined });
+  });
+
+  it("tells 'no intro' apart from 'the chart's own default'", () => {
+    expect(read("intro=none").intro).toBeNull();
+    expect(read("").intro).toBeUndefined();
+  });
+
+  it("writes back what it reads", () => {
+    const q = chartQuery({ instrument: "eb", key: "Db", intro: { kind: "turnaround", variant: "iii-VI-ii-V", tritoneSub: true } });
+    expect(read(q.slice(1))).toEqual({ instrument: "eb", key: "Db", intro: { kind: "turnaround", variant: "iii-VI-ii-V", tritoneSub: true } });
+    expect(chartQuery({ intro: null })).toBe("?intro=none");
+  });
+});
