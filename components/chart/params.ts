@@ -29,7 +29,7 @@ export function parseChartParams(params: ReadableParams): ChartParams {
   const kind = optional(IntroKindSchema, params.get("intro"));
   let intro: IntroChoice | null | undefined = params.get("intro") === "none" ? null : undefined;
   if (kind) {
-    const vamp = params.get("vamp")?.split(",").map((s) => s.trim());
+    const vamp = params.get("vamp")?.split(/\s+/).filter(Boolean); // chord symbols hold commas, never spaces
     const candidate = {
       kind,
       bars: optional(Count, params.get("introBars")),
@@ -61,7 +61,7 @@ export function chartQuery(p: { instrument?: string | null; key?: string | null;
     if (p.intro.repeats) q.set("introRepeats", String(p.intro.repeats));
     if (p.intro.tritoneSub) q.set("tritone", "1");
     if (p.intro.variant) q.set("variant", p.intro.variant);
-    if (p.intro.vamp) q.set("vamp", p.intro.vamp.join(","));
+    if (p.intro.vamp) q.set("vamp", p.intro.vamp.join(" "));
   }
   if (p.list) q.set("list", p.list);
   const s = q.toString();

@@ -120,6 +120,25 @@ test("a demo account signs in and lands on a library of the demo charts", async 
   await expect(library.rows).toHaveCount(demoTitles.length);
   for (const title of demoTitles) await expect(library.row(title)).toBeVisible();
   await expect(library.newChart).toBeVisible();
+
+  // Signed in, the front page goes straight on to the bands.
+  await page.goto("/");
+  await expect(page).toHaveURL(/\/bands$/);
+});
+
+test("the app installs as Pedalpoint with its own icons", async ({ request }) => {
+  const res = await request.get("/manifest.webmanifest");
+  expect(res.ok()).toBe(true);
+  const manifest = (await res.json()) as { name: string; start_url: string; display: string; icons: { src: string; sizes: string; type: string }[] };
+  expect(manifest.name).toBe("Pedalpoint");
+  expect(manifest.display).toBe("standalone");
+  // Installable in Chromium: a 192 and a 512 PNG icon (web.dev install criteria, from memory).
+  for (const size of ["192x192", "512x512"]) {
+    const icon = manifest.icons.find((i) => i.sizes === size && i.type === "image/png");
+    expect(icon, `a ${size} PNG icon`).toBeTruthy();
+    const png = await request.get(icon!.src);
+    expect(png.headers()["content-type"]).toContain("image/png");
+  }
 });
 
 test("search, sort and filters narrow the library and live in the address", async ({ page }) => {
