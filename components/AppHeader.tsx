@@ -1,7 +1,7 @@
 "use client";
 // The bar across every band screen: where you are, where you can go, and the way out.
 import Link from "next/link";
-import { usePathname, useRouter } from "next/navigation";
+import { usePathname } from "next/navigation";
 import { useState } from "react";
 import { useBandRoute } from "@/lib/offline/route";
 import { signOutAndClear, useMembership, useMyBands } from "@/lib/offline/hooks";
@@ -35,7 +35,6 @@ function isCurrent(pathname: string, item: NavItem): boolean {
 export function AppHeader() {
   const { bandId } = useBandRoute();
   const pathname = usePathname();
-  const router = useRouter();
   const bands = useMyBands();
   const membership = useMembership(bandId ?? "");
   const [leaving, setLeaving] = useState(false);
@@ -47,9 +46,11 @@ export function AppHeader() {
   async function signOut() {
     setLeaving(true);
     try {
+      // Clears this device's copy of the book, then leaves for the sign-in page.
       await signOutAndClear();
-    } finally {
-      router.replace("/");
+    } catch (err) {
+      console.error(err);
+      setLeaving(false);
     }
   }
 

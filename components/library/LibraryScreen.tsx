@@ -34,10 +34,11 @@ export function LibraryScreen() {
     [query, setQuery],
   );
 
-  const all = useMemo(() => (charts ?? []).filter((c) => !("conflictOf" in c && c.conflictOf)), [charts]);
+  const all = useMemo(() => charts ?? [], [charts]);
   const shown = useMemo(() => applyQuery(all, query), [all, query]);
   const { keys, feels } = useMemo(() => facets(all), [all]);
   const updated = all.filter((c) => c.unseen).length;
+  const copies = all.filter((c) => c.conflictOf).length;
 
   if (!bandId) return null;
   return (
@@ -49,6 +50,7 @@ export function LibraryScreen() {
             {band ? `${band.name} · ` : ""}
             {charts === undefined ? "Opening the book…" : `${all.length} ${all.length === 1 ? "chart" : "charts"}`}
             {updated ? ` · ${updated} updated since you last opened them` : ""}
+            {copies ? ` · ${copies} ${copies === 1 ? "copy" : "copies"} of your edits that clashed with a newer version` : ""}
           </p>
         </div>
         {canEdit ? (

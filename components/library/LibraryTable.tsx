@@ -10,6 +10,8 @@ import { SORT_LABELS } from "./LibraryControls";
 export interface TableChart extends LibraryRow {
   unseen: boolean;
   updatedByName: string;
+  /** Set on a conflict copy: the chart this device's edit was meant to change. */
+  conflictOf?: string;
 }
 
 interface Props {
@@ -81,12 +83,18 @@ export function LibraryTable({ bandId, charts, query, canEdit, onSort }: Props) 
               data-testid="library-row"
               data-chart-id={c.id}
               data-updated={c.unseen ? "true" : undefined}
+              data-copy={c.conflictOf ? "true" : undefined}
             >
               <td className="px-3 py-2">
                 <Link href={`${base}/${encodeURIComponent(c.id)}`} className="inline-flex min-h-11 items-center font-semibold text-ink underline-offset-4 hover:underline" data-testid="chart-link">
                   {c.title}
                 </Link>
                 {c.unseen ? <UpdatedMark /> : null}
+                {c.conflictOf ? (
+                  <span className="ml-2 inline-block rounded-full border border-red-800 px-2 py-0.5 align-middle text-xs font-bold text-red-800" data-testid="copy-mark">
+                    your clashing copy
+                  </span>
+                ) : null}
                 <p className="text-sm text-ink-muted md:hidden">
                   {[c.composer, c.feel, c.tempo ? `♩= ${c.tempo}` : ""].filter(Boolean).join(" · ")}
                 </p>

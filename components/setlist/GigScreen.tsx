@@ -12,7 +12,7 @@ import { INSTRUMENT_OPTIONS } from "@/components/ui/labels";
 import { chartQuery } from "@/components/chart/params";
 import { useBandRoute } from "@/lib/offline/route";
 import { groupBySet, type SetlistEntry } from "@/lib/setlist";
-import { canEditSetlists, deleteSetlistEverywhere, newId, saveSetlist, useBookCharts, useMyMembership, useSetlist } from "./data";
+import { canEditSetlists, deleteSetlistEverywhere, newId, saveSetlist, useBookCharts, useHasSynced, useMyMembership, useSetlist } from "./data";
 import { gigWhen } from "./datetime";
 import { GigEditorHost } from "./GigEditor";
 import { SetTunes, type TuneInfo } from "./SetTunes";
@@ -28,6 +28,7 @@ export function GigScreen() {
   const loaded = useSetlist(setlistId);
   const charts = useBookCharts(bandId);
   const membership = useMyMembership(bandId);
+  const synced = useHasSynced(bandId);
   const [instrument, setInstrument] = useState<string | null>(null);
   const part = instrument ?? membership?.instrument ?? "concert";
   const entries = useMemo(() => (loaded?.entries ?? []).map((e) => plain({ ...e, ending: e.ending as SetlistEntry["ending"] })), [loaded]);
@@ -38,6 +39,9 @@ export function GigScreen() {
     return <PageColumn><p className="py-8 text-center text-ink-muted">Opening the set list…</p></PageColumn>;
   }
   const base = `/bands/${encodeURIComponent(bandId)}/setlists`;
+  if (loaded === null && !synced) {
+    return <PageColumn><p className="py-8 text-center text-ink-muted" role="status">Bringing the set list to this device…</p></PageColumn>;
+  }
   if (loaded === null) {
     return (
       <PageColumn>

@@ -60,6 +60,11 @@ export function useMyMembership(bandId: string | null): LocalMembership | null |
   return useLiveQuery(async () => (bandId ? ((await getLocalBook().memberships.get(bandId)) ?? null) : null), [bandId]);
 }
 
+/** True once this device has finished a sync of the band (so a missing row is really missing). */
+export function useHasSynced(bandId: string | null): boolean | undefined {
+  return useLiveQuery(async () => (bandId ? Boolean((await getLocalBook().syncState.get(bandId))?.lastSyncedAt) : false), [bandId]);
+}
+
 export function useMe(): string | null | undefined {
   return useLiveQuery(async () => (await getLocalBook().session.get("me"))?.userId ?? null, []);
 }

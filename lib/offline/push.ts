@@ -46,10 +46,13 @@ async function onConflict(book: LocalBook, item: OutboxItem, r: Extract<Mutation
     const local = await book.charts.get(item.entityId);
     // A delete that clashed with someone's edit keeps no copy: their version comes back instead.
     if (local && last.op !== "delete") {
+      const title = local.title.endsWith(COPY_SUFFIX) ? local.title : `${local.title}${COPY_SUFFIX}`;
       const copy: ChartRow = {
         ...local,
         id: copyId,
-        title: local.title.endsWith(COPY_SUFFIX) ? local.title : `${local.title}${COPY_SUFFIX}`,
+        title,
+        // The page shows the chart's own title: say there too that this is the copy.
+        body: { ...local.body, title },
         conflictOf: item.entityId,
         unseen: false,
         deleted: false,
