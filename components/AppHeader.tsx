@@ -15,13 +15,15 @@ interface NavItem {
   also?: string;
 }
 
-function navFor(bandId: string, isLeader: boolean): NavItem[] {
+function navFor(bandId: string, isLeader: boolean, canEdit = isLeader): NavItem[] {
   const base = `/bands/${encodeURIComponent(bandId)}`;
   const items: NavItem[] = [
     { href: base, label: "Library", testId: "nav-library", also: `${base}/charts` },
     { href: `${base}/setlists`, label: "Set lists", testId: "nav-setlists" },
   ];
+  if (canEdit) items.push({ href: `${base}/import`, label: "Import", testId: "nav-import" });
   if (isLeader) items.push({ href: `${base}/members`, label: "Members", testId: "nav-members" });
+  if (isLeader) items.push({ href: `${base}/plan`, label: "Plan", testId: "nav-plan" });
   items.push({ href: "/settings", label: "Settings", testId: "nav-settings" });
   return items;
 }
@@ -41,7 +43,7 @@ export function AppHeader() {
   const band = bandId ? bands?.find((b) => b.id === bandId) : undefined;
   // Reading views (the bandstand, playing a set) use the whole screen.
   const onStage = /\/(bandstand|play)(\/|$)/.test(pathname);
-  const items = bandId ? navFor(bandId, membership?.role === "leader") : [];
+  const items = bandId ? navFor(bandId, membership?.role === "leader", membership?.role === "leader" || membership?.role === "arranger") : [];
 
   async function signOut() {
     setLeaving(true);

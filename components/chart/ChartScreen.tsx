@@ -82,6 +82,12 @@ export function ChartScreen() {
           <Button tone="secondary" onClick={() => window.print()}>
             Print part
           </Button>
+          <Link href={`/bands/${encodeURIComponent(bandId)}/import/parts?chart=${encodeURIComponent(chartId)}`} className={buttonClass("secondary")} data-testid="open-parts">
+            PDF parts
+          </Link>
+          <a href={`/api/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(chartId)}/musicxml?instrument=${choices.instrument}`} className={buttonClass("secondary")} data-testid="export-musicxml" download>
+            MusicXML
+          </a>
         </div>
       </div>
 

@@ -88,7 +88,7 @@ export function IntroPicker({
 }) {
   const name = useId();
   return (
-    <fieldset data-testid="intro-picker" className="flex flex-col gap-2">
+    <fieldset data-testid="intro-picker" className="flex min-w-0 flex-col gap-2">
       <legend className="mb-1 font-semibold">How it starts</legend>
       <label className={cx("flex gap-3 rounded-md border p-3", value === null ? "border-brass bg-brass-light/40" : "border-paper-dim")}>
         <input type="radio" name={name} value="" checked={value === null} onChange={() => onChange(null)} className="mt-1 size-5" />

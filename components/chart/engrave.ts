@@ -17,6 +17,7 @@ import {
 } from "vexflow/bravura";
 import type { ChartLayout, Page, PlacedBar, System } from "@/lib/render/types";
 import { melodyNotes, melodyTies } from "./melody";
+import { textWidth } from "@/lib/render/metrics";
 import { addText, drawChordSymbol, drawEndingBracket, drawLabelBox } from "./svg-text";
 import { drawBarMark } from "@/components/marks/svg-marks";
 import { barKey, type BarMark } from "@/lib/setlist/marks";
@@ -122,10 +123,15 @@ function drawLabels(ctx: RenderContext, b: PlacedBar, system: System) {
 
 function drawHeader(ctx: RenderContext, page: Page, text: PageText) {
   if (!page.header) return;
-  const cx = page.width / 2;
-  addText(ctx, text.title, cx, page.header.y + 30, { size: 28, anchor: "middle", bold: true, cls: "pp-title" });
-  if (text.details) addText(ctx, text.details, 16, page.header.y + 60, { size: 15, cls: "pp-details" });
-  if (text.composer) addText(ctx, text.composer, page.width - 16, page.header.y + 60, { size: 15, anchor: "end", italic: true });
+  const y = page.header.y;
+  addText(ctx, text.title, page.width / 2, y + 30, { size: 28, anchor: "middle", bold: true, cls: "pp-title" });
+  // Details left and composer right share a line when both fit; on a narrow page the composer goes
+  // up under the title.
+  const fits = textWidth(text.details, 15) + textWidth(text.composer, 15) + 48 <= page.width;
+  if (text.composer) {
+    addText(ctx, text.composer, page.width - 16, fits ? y + 62 : y + 48, { size: fits ? 15 : 13, anchor: "end", italic: true, cls: "pp-composer" });
+  }
+  if (text.details) addText(ctx, text.details, 16, fits ? y + 62 : y + 66, { size: 15, bold: true, cls: "pp-details" });
 }
 
 /** Draws `input.page` into `host` (emptied first) and returns the SVG element. */
@@ -145,14 +151,16 @@ export function engravePage(host: HTMLElement, input: EngraveInput): SVGSVGEleme
   svg.setAttribute("role", "img");
   svg.setAttribute("aria-label", `${text.title}, ${text.partLabel}, page ${page.number}`);
 
-  addText(ctx, text.partLabel, page.width - 12, 17, { size: 14, anchor: "end", bold: true, cls: "pp-part" });
-  if (page.number > 1) addText(ctx, `${text.title} · ${page.number}`, 12, 17, { size: 13, cls: "pp-running" });
+  addText(ctx, text.partLabel, page.width - 12, 18, { size: 16, anchor: "end", bold: true, cls: "pp-part" });
+  if (page.number > 1) addText(ctx, `${text.title} · ${page.number}`, 12, 18, { size: 14, cls: "pp-running" });
   drawHeader(ctx, page, text);
 
   const key = vexKey(input.writtenKey);
   for (const system of page.systems) {
     system.bars.forEach((b, i) => {
-      const group = ctx.openGroup(b.intro ? "pp-bar pp-intro" : "pp-bar") as SVGGElement | undefined;
+      const group = ctx.openGroup() as SVGGElement | undefined;
+      // Our own class names (VexFlow would prefix them), for print styles and outside checks.
+      group?.setAttribute("class", b.intro ? "pp-bar pp-intro" : "pp-bar");
       group?.setAttribute("data-bar", String(b.bar.index));
       if (b.bar.source) group?.setAttribute("data-source", barKey(b.bar.source));
       const notes = drawBar(ctx, layout, b, system, key, input.slashes ?? true);

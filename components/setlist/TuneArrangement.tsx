@@ -84,7 +84,11 @@ export function TuneArrangement({ entry, chart, onChange }: { entry: SetlistEntr
             label="How the tune starts"
             value={intro?.kind ?? ""}
             error={err("intro.kind")}
-            onChange={(e) => setIntro(e.target.value ? { kind: e.target.value as IntroKind } : null)}
+            onChange={(e) => {
+              const kind = e.target.value as IntroKind | "";
+              // A new kind starts from its own defaults, not the options of the previous one.
+              onChange({ ...entry, intro: kind ? (kind === "turnaround" ? { kind, variant: "I-vi-ii-V" } : { kind }) : null });
+            }}
             options={[{ value: "", label: chart?.intro ? "As written (the chart's own intro)" : "As written (straight in at the top)" }, ...INTRO_KINDS.map((k) => ({ value: k, label: describeIntroKind(k) }))]}
             data-testid="intro-kind"
           />

@@ -31,7 +31,7 @@ export function chartRowFrom(w: WireChart, prev: ChartRow | undefined, me: strin
 }
 
 export function revisionsFrom(w: WireChart): LocalRevision[] {
-  return (w.history ?? []).map((h) => ({ ...h, chartId: w.id, bandId: w.bandId }));
+  return (w.history ?? []).map((h) => ({ ...h, sourceText: h.sourceText ?? w.sourceText, chartId: w.id, bandId: w.bandId }));
 }
 
 /** Every table a pulled page may touch. */

@@ -22,9 +22,9 @@ async function sha256Hex(bytes: ArrayBuffer): Promise<string> {
 export async function fetchMissingAttachmentFiles(
   book: LocalBook,
   bandId: string,
-  opts: { chartId?: string; fetcher?: typeof fetch; now?: () => Date } = {},
+  opts: { chartId?: string; fetcher?: (url: string, init?: RequestInit) => Promise<Response>; now?: () => Date } = {},
 ): Promise<FetchFilesResult> {
-  const fetcher = opts.fetcher ?? fetch;
+  const fetcher = opts.fetcher ?? ((url: string, init?: RequestInit) => fetch(url, init));
   const rows = opts.chartId
     ? (await book.attachments.where("chartId").equals(opts.chartId).toArray()).filter((a) => a.bandId === bandId)
     : await book.attachments.where("bandId").equals(bandId).toArray();

@@ -13,7 +13,8 @@ export interface WireRevision {
   message: string;
   authorName: string;
   createdAt: string;
-  sourceText: string;
+  /** Null for the chart's current revision: its text is the chart's own `sourceText` (sent once). */
+  sourceText: string | null;
   meta: RevisionMeta;
 }
 

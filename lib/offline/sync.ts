@@ -1,6 +1,8 @@
 // The device's sync engine: who is signed in and in which bands (bootstrap), then per band push the
 // outbox and pull the feed. One run at a time; a request during a run schedules one more run.
 // What starts a run lives in triggers.ts (pages) and worker/sw.ts (Background Sync).
+import { fetchMissingAttachmentFiles } from "./attachments";
+import { fetchMissingAttachmentFiles } from "./attachments";
 import type { LocalBook } from "./db";
 import { deleteBandData, getLocalBook } from "./db";
 import type { BootstrapResponse } from "./protocol";
@@ -102,6 +104,8 @@ export class SyncEngine {
     try {
       await pushOutbox(book, this.transport, bandId, me, { force, now: this.now });
       await pullBand(book, this.transport, bandId, me, (progress) => this.set({ progress }));
+      // PDF and image parts follow their metadata onto the device, for reading with no signal.
+      await fetchMissingAttachmentFiles(book, bandId, { fetcher: (url, init) => this.transport.fetch(url, init) }).catch(() => undefined);
     } catch (err) {
       if (!(err instanceof AccessLostError)) throw err;
       await deleteBandData(book, bandId);

@@ -6,7 +6,7 @@ import type Stripe from "stripe";
 import type { Database } from "@/db/schema";
 import { sendMail } from "@/lib/mail";
 import { receiptMail } from "./billing-mail";
-import { applySubscription, bandFor, paymentClient, paymentConfig, WEBHOOK_TOLERANCE_SECONDS } from "./billing-store";
+import { applySubscription, bandFor, effectivePlan, paymentClient, paymentConfig, subscriptionRow, WEBHOOK_TOLERANCE_SECONDS } from "./billing-store";
 import { AppError } from "./errors";
 import { appUrl } from "./tokens";
 
@@ -42,13 +42,27 @@ export async function handleWebhook(db: Kysely<Database>, payload: string, signa
     case "customer.subscription.created":
     case "customer.subscription.updated":
     case "customer.subscription.deleted": {
-      const sub = event.data.object;
-      const bandId = await bandFor(db, sub);
-      if (bandId) await applySubscription(db, bandId, sub, event.type === "customer.subscription.deleted");
+      const bandId = await bandFor(db, event.data.object);
+      if (!bandId) return { received: true, type: event.type, bandId };
+      // Events can arrive late and out of order: act on the subscription as it is now.
+      const sub = await latest(stripe, event.data.object);
+      const row = await subscriptionRow(db, bandId);
+      // An event about an older subscription must not touch the band's current one.
+      if (row?.subscription_id && row.subscription_id !== sub.id && effectivePlan(row) === "band") return { received: true, type: event.type, bandId };
+      await applySubscription(db, bandId, sub, sub.status === "canceled" || event.type === "customer.subscription.deleted");
       return { received: true, type: event.type, bandId };
     }
     default:
       return { received: true, type: event.type, bandId: null };
+  }
+}
+
+async function latest(stripe: Stripe, sub: Stripe.Subscription): Promise<Stripe.Subscription> {
+  try {
+    return await stripe.subscriptions.retrieve(sub.id);
+  } catch {
+    // the provider cannot be reached: the signed event's copy is the best we have
+    return sub;
   }
 }
 

@@ -2,6 +2,8 @@ import "server-only";
 // Row-level helpers shared by the chart use cases (and the sync push, which applies chart edits).
 import type { Kysely, Transaction } from "kysely";
 import type { ChartRow, Database } from "@/db/schema";
+import { ChartSchema } from "@/lib/chart/model";
+import { reanchorChartMarks } from "./annotations";
 import { recordChange } from "./changes";
 import { toChartDto, type ChartDto, type PreparedChart } from "./chart-body";
 import { newId } from "./tokens";
@@ -45,6 +47,11 @@ export async function writeRevision(
     })
     .execute();
   await recordChange(trx, { bandId: row.band_id, entity: "chart", entityId: row.id, op: row.deleted_at ? "delete" : "upsert" });
+  // Players' personal marks follow their bars into the new revision (or are flagged when a bar is gone).
+  if (!row.deleted_at && row.revision > 1) {
+    const body = ChartSchema.safeParse(JSON.parse(prepared.bodyJson));
+    if (body.success) await reanchorChartMarks(trx, row.band_id, row.id, body.data, row.revision, new Date(row.updated_at));
+  }
 }
 
 export function rowFields(p: PreparedChart) {

@@ -42,7 +42,7 @@ export async function loadCharts(db: Kysely<Database>, bandId: string, ids: stri
     .selectFrom("chart_revisions as r")
     .innerJoin("charts as c", "c.id", "r.chart_id")
     .leftJoin("users as u", "u.id", "r.author_id")
-    .select(["r.chart_id", "r.revision", "r.title", "r.message", "r.created_at", "r.source_text", "r.meta_json", "u.name as author_name"])
+    .select(["r.chart_id", "r.revision", "r.title", "r.message", "r.created_at", "r.source_text", "r.meta_json", "c.revision as current", "u.name as author_name"])
     .where("r.chart_id", "in", rows.map((r) => r.id))
     .where((eb) => eb("r.revision", ">", eb(eb.ref("c.revision"), "-", HISTORY_LIMIT)))
     .orderBy("r.chart_id")
@@ -53,7 +53,7 @@ export async function loadCharts(db: Kysely<Database>, bandId: string, ids: stri
     const list = history.get(r.chart_id) ?? [];
     list.push(
       `{"revision":${r.revision},"title":${s(r.title)},"message":${s(r.message)},"authorName":${s(r.author_name ?? "")},` +
-        `"createdAt":${s(r.created_at)},"sourceText":${s(r.source_text)},"meta":${splice(r.meta_json)}}`,
+        `"createdAt":${s(r.created_at)},"sourceText":${r.revision === r.current ? "null" : s(r.source_text)},"meta":${splice(r.meta_json)}}`,
     );
     history.set(r.chart_id, list);
   }

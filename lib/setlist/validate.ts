@@ -107,7 +107,7 @@ export function checkArrangement(
 export function introInWords(intro: IntroChoice | null): string {
   if (!intro) return "as written";
   const parts: string[] = [KIND_WORDS[intro.kind]];
-  if (intro.kind === "turnaround" && intro.variant) parts[0] = `${intro.variant} turnaround`;
+  if (intro.kind === "turnaround") parts[0] = `${intro.variant ?? "I-vi-ii-V"} turnaround`;
   if (intro.kind === "vamp" && intro.vamp) parts[0] = `vamp ${intro.vamp[0]}–${intro.vamp[1]}`;
   if (intro.bars) parts.push(`${intro.bars} bars`);
   if (intro.repeats && intro.repeats > 1) parts.push(`×${intro.repeats}`);

@@ -124,6 +124,12 @@ test("a demo account signs in and lands on a library of the demo charts", async 
   // Signed in, the front page goes straight on to the bands.
   await page.goto("/");
   await expect(page).toHaveURL(/\/bands$/);
+
+  // Signing out clears the device and leaves for the sign-in page; the front page stays put then.
+  await page.getByTestId("sign-out").click();
+  await expect(page).toHaveURL(/\/signin/, { timeout: 30_000 });
+  await page.goto("/");
+  await expect(page.getByTestId("landing-signin")).toBeVisible();
 });
 
 test("the app installs as Pedalpoint with its own icons", async ({ request }) => {

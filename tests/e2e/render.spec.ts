@@ -92,8 +92,10 @@ test.describe("chart page", () => {
     await page.getByTestId("instrument-picker").selectOption("bb");
     await expect(page).toHaveURL(/instrument=bb/);
     await expect(page.locator('[data-testid="chart-page"] [data-sheet="1"] .pp-part')).toHaveText("B♭ part");
-    await page.getByTestId("intro-picker").locator('[data-kind="vamp"] input').check();
+    await page.getByTestId("intro-picker").locator('[data-kind="vamp"] input').click();
     await expect(page).toHaveURL(/intro=vamp/);
+    await expect(page.getByTestId("intro-picker").locator('[data-kind="vamp"] input')).toBeChecked();
+    await expect(page.locator('[data-testid="chart-page"] [data-sheet="1"] .pp-intro-label').first()).toHaveText("Intro");
     await expect(page.getByTestId("intro-picker").locator("[data-kind]")).toHaveCount(INTRO_KINDS.length);
   });
 

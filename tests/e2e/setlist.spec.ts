@@ -83,7 +83,10 @@ test.describe("tonight's gig", () => {
     await page.evaluate(async () => {
       await navigator.serviceWorker.ready;
     });
-    await page.waitForTimeout(1500);
+    // The first load is not controlled until the worker claims it; a reload always is.
+    if (!(await page.evaluate(() => Boolean(navigator.serviceWorker.controller)))) await page.reload();
+    await expect.poll(() => page.evaluate(() => Boolean(navigator.serviceWorker.controller)), { timeout: 30_000 }).toBe(true);
+    await drawn(page);
     await page.context().setOffline(true);
     await page.reload();
     await drawn(page);

@@ -19,10 +19,10 @@ describe("parts on the device", () => {
     const b = book();
     await b.attachments.bulkPut([meta("a1"), meta("a2", "0".repeat(64))]);
     const calls: string[] = [];
-    const fetcher = (async (url: string) => {
+    const fetcher = async (url: string) => {
       calls.push(url);
       return new Response(pdf as BlobPart, { status: 200 });
-    }) as typeof fetch;
+    };
     const r = await fetchMissingAttachmentFiles(b, "band1", { fetcher });
     expect(r).toEqual({ fetched: ["a1"], failed: ["a2"] }); // a2's bytes do not match its hash
     expect(calls[0]).toBe("/api/bands/band1/charts/chart1/attachments/a1");
@@ -37,10 +37,10 @@ describe("parts on the device", () => {
     await b.attachments.bulkPut([meta("a1"), meta("a3")]);
     await b.attachmentFiles.put({ id: "a1", blob: new Blob([pdf as BlobPart]), storedAt: "x" });
     let n = 0;
-    const fetcher = (async () => {
+    const fetcher = async (): Promise<Response> => {
       n++;
       throw new TypeError("Failed to fetch");
-    }) as typeof fetch;
+    };
     expect(await fetchMissingAttachmentFiles(b, "band1", { fetcher })).toEqual({ fetched: [], failed: ["a3"] });
     expect(n).toBe(1);
     expect(await readAttachmentFile(b, "a3")).toBeNull();

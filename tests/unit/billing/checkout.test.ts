@@ -2,7 +2,7 @@ import type { Kysely } from "kysely";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Database } from "@/db/schema";
 import { assertPlanAllows, cancelPlan, getPlanStatus, handleWebhook, resumePlan, startCheckout } from "@/lib/server/billing";
-import { startPaymentFake, type PaymentFake } from "@/scripts/payment-fake";
+import { FAKE_WEBHOOK_SECRET, signWebhook, startPaymentFake, type PaymentFake } from "@/scripts/payment-fake";
 import { appError, cleanupDbs, freshDb, makeBand, outcome, type BandCast } from "../server/helpers";
 
 let fake: PaymentFake;
@@ -72,5 +72,15 @@ describe("buying and cancelling the band plan through the SDK and the fake", () 
     expect(status).toMatchObject({ plan: "free", status: "canceled", limits: { charts: 25, members: 8 } });
     await expect(assertPlanAllows(db, cast.bandId, "chart")).resolves.toBeUndefined();
     expect((await appError(() => cancelPlan(db, cast.leader, cast.bandId))).status).toBe(409);
+  });
+
+  it("a late, out-of-order 'active' event does not bring the ended plan back", async () => {
+    const [sub] = [...fake.state.subscriptions.values()];
+    const stale = JSON.stringify({
+      id: "evt_late", object: "event", type: "customer.subscription.updated", created: Math.floor(Date.now() / 1000) - 60, livemode: false,
+      data: { object: { ...sub, status: "active", cancel_at_period_end: false } },
+    });
+    await handleWebhook(db, stale, signWebhook(stale, FAKE_WEBHOOK_SECRET));
+    expect((await getPlanStatus(db, cast.leader, cast.bandId)).plan).toBe("free");
   });
 });

@@ -119,3 +119,23 @@ describe("the sync feed's rows and pushes", () => {
     expect(del.status).toBe("rejected");
   });
 });
+
+describe("marks through a published revision", () => {
+  it("follow their bar when the leader publishes a revision through the chart use case", async () => {
+    const { createChart, updateChart } = await import("@/lib/server/charts");
+    // An invented 8-bar tune; the revision puts a 2-bar intro section in front of A.
+    const text = "title: Pier Lamps\nkey: F\ntime: 4/4\n\nA:\n| Fmaj7 | D7 | Gm7 | C7 |\nB:\n| Am7 | D7 | Gm7 C7 | Fmaj7 |\n";
+    const input = { title: "Pier Lamps", composer: "", key: "F", meter: "4/4", tempo: null, feel: "", sourceText: text, message: "" };
+    const chart = await createChart(w.db, w.people.leader, w.bandId, input);
+    const mark = await createMark(w.db, w.people.player, w.bandId, {
+      chartId: chart.id,
+      data: { anchor: { section: 1, sectionLabel: "B", bar: 1, chords: ["D7"] }, kind: "highlight", chartRevision: 1 },
+    }, NOW);
+    const revised = text.replace("A:\n", "Lead:\n| C7sus4 | C7 |\nA:\n");
+    await updateChart(w.db, w.people.leader, w.bandId, chart.id, { ...input, sourceText: revised, baseRevision: 1 });
+    const [after] = await listMyMarks(w.db, w.people.player, w.bandId, chart.id);
+    expect(after?.id).toBe(mark.id);
+    expect(after?.data.anchor).toMatchObject({ section: 2, sectionLabel: "B", bar: 1 });
+    expect(after?.data.chartRevision).toBe(2);
+  });
+});
