@@ -110,7 +110,7 @@ export function IntroPicker({
             <span className={cx("text-sm font-semibold", o.fits ? "text-green-800" : "text-red-800")}>{o.fits ? "suits this tune" : "doesn't suit"}</span>
             <span className="block text-sm text-ink-muted">{o.advice}</span>
             {o.bars.length ? (
-              <span className="mt-1 block overflow-x-auto whitespace-nowrap font-mono text-sm" aria-label={`Chords, concert: ${preview(o)}`}>
+              <span className="mt-1 block break-words font-mono text-sm">
                 {preview(o)}
               </span>
             ) : null}

@@ -21,6 +21,10 @@ async function onApplied(book: LocalBook, item: OutboxItem, r: Extract<MutationR
   const later = await laterItems(book, item);
   await book.outbox.delete(item.seq!);
   for (const l of later) await book.outbox.update(l.seq!, { baseRevision: r.revision });
+  // A mark's next edit builds on the revision the server just gave it.
+  if (item.entity === "annotation" && item.op !== "delete" && later.length === 0) {
+    await book.annotations.update(item.entityId, { revision: r.revision, localEdit: false });
+  }
   if (item.entity !== "chart") return;
   if (item.op === "delete") {
     if (later.length === 0) await deleteChartLocally(book, item.entityId);

@@ -22,5 +22,9 @@ export function parseBandPath(pathname: string): BandRoute {
 export function useBandRoute(): BandRoute {
   const pathname = usePathname();
   const live = typeof window !== "undefined" ? window.location.pathname : pathname;
+  // In a client-side navigation the new page renders before the address bar changes, so the
+  // router's path leads; the address bar speaks only for a served shell's "_" placeholders.
+  const routed = pathname ? parseBandPath(pathname) : null;
+  if (routed && !pathname.split("/").includes("_")) return routed;
   return parseBandPath(live || pathname);
 }

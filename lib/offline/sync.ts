@@ -2,7 +2,6 @@
 // outbox and pull the feed. One run at a time; a request during a run schedules one more run.
 // What starts a run lives in triggers.ts (pages) and worker/sw.ts (Background Sync).
 import { fetchMissingAttachmentFiles } from "./attachments";
-import { fetchMissingAttachmentFiles } from "./attachments";
 import type { LocalBook } from "./db";
 import { deleteBandData, getLocalBook } from "./db";
 import type { BootstrapResponse } from "./protocol";

@@ -30,7 +30,8 @@ export interface AttachmentDto {
 }
 
 export function dataDir(): string {
-  return path.resolve(process.env.DATA_DIR ?? path.join(process.cwd(), "data"));
+  // the data folder is chosen at run time; the build must not trace it
+  return path.resolve(/*turbopackIgnore: true*/ process.env.DATA_DIR ?? path.join(/*turbopackIgnore: true*/ process.cwd(), "data"));
 }
 
 /** The file's type from its magic bytes: %PDF-, the PNG signature, or a JPEG start-of-image marker. */
@@ -68,7 +69,7 @@ export async function uploadAttachment(db: Kysely<Database>, actor: Actor | null
   if (!type) throw new AppError("unsupported_media_type", "Pedalpoint takes PDF, PNG and JPEG files for parts; this file is none of those.");
   const sha256 = createHash("sha256").update(file.bytes).digest("hex");
   const rel = path.posix.join("attachments", sha256);
-  const abs = path.join(dataDir(), "attachments", sha256);
+  const abs = path.join(/*turbopackIgnore: true*/ dataDir(), "attachments", sha256);
   await fs.mkdir(path.dirname(abs), { recursive: true });
   const exists = await fs.stat(abs).then(() => true, () => false);
   if (!exists) {
@@ -117,7 +118,7 @@ export async function readAttachment(
   await requireReader(db, actor, bandId, chartId);
   const row = await db.selectFrom("attachments").selectAll().where("band_id", "=", bandId).where("chart_id", "=", chartId).where("id", "=", attachmentId).where("deleted_at", "is", null).executeTakeFirst();
   if (!row) throw new AppError("not_found", "That part was not found.");
-  const abs = path.join(dataDir(), row.path);
+  const abs = path.join(/*turbopackIgnore: true*/ dataDir(), row.path);
   if (!abs.startsWith(dataDir() + path.sep)) throw new AppError("not_found", "That part was not found.");
   const bytes = await fs.readFile(abs).catch(() => null);
   if (!bytes) throw new AppError("not_found", "That part's file is missing on the server.");

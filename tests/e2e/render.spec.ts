@@ -54,6 +54,7 @@ test.describe("chart page", () => {
     await expect(page.locator('[data-testid="chart-page"]')).toHaveAttribute("data-page", "1");
     await expect(page.locator('[data-testid="chart-page"][data-drawn-all="true"]')).toBeAttached();
     expect(outside, "requests that left the origin while drawing").toEqual([]);
+    await page.screenshot({ path: "test-results/screenshots/chart-page-bb.png" });
   });
 
   test("the same chart as an E♭ part is in C major: no sharps or flats", async ({ page }) => {
@@ -97,6 +98,20 @@ test.describe("chart page", () => {
     await expect(page.getByTestId("intro-picker").locator('[data-kind="vamp"] input')).toBeChecked();
     await expect(page.locator('[data-testid="chart-page"] [data-sheet="1"] .pp-intro-label').first()).toHaveText("Intro");
     await expect(page.getByTestId("intro-picker").locator("[data-kind]")).toHaveCount(INTRO_KINDS.length);
+  });
+
+  test("the print view is the part alone, black on white, one page per sheet", async ({ page }) => {
+    await openChart(page, "?instrument=bb");
+    await expect(page.locator(".pp-print [data-sheet] svg").first()).toBeAttached({ timeout: 10_000 });
+    await page.emulateMedia({ media: "print" });
+    await expect(page.locator(".pp-print [data-sheet]").first()).toBeVisible();
+    await expect(page.getByTestId("chart-page")).toBeHidden();
+    await expect(page.getByTestId("instrument-picker")).toBeHidden();
+    const color = await page.locator(".pp-print").evaluate((el) => getComputedStyle(el).color);
+    expect(color).toBe("rgb(0, 0, 0)");
+    const breaks = await page.locator(".pp-print [data-sheet]").first().evaluate((el) => getComputedStyle(el).breakAfter);
+    expect(breaks).toBe("page");
+    await page.emulateMedia({ media: "screen" });
   });
 
   test("the chart page has no serious accessibility problems", async ({ page }) => {
