@@ -146,6 +146,9 @@ export function engravePage(host: HTMLElement, input: EngraveInput): SVGSVGEleme
   ctx.setStrokeStyle("currentColor");
   const svg = host.querySelector("svg") as SVGSVGElement;
   svg.setAttribute("viewBox", `0 0 ${page.width} ${page.height}`);
+  // Every mark takes the theme's colour (stage, ember, black for print).
+  svg.setAttribute("fill", "currentColor");
+  svg.setAttribute("stroke", "currentColor");
   svg.removeAttribute("width");
   svg.removeAttribute("height");
   svg.setAttribute("role", "img");

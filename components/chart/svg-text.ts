@@ -33,6 +33,8 @@ export function addText(ctx: RenderContext, text: string, x: number, y: number, 
     "font-family": TEXT_FONT,
     "font-size": style.size,
     fill: "currentColor",
+    // VexFlow puts stroke="black" on the root; text must not inherit an outline.
+    stroke: "none",
     "text-anchor": style.anchor ?? "start",
     ...(style.bold ? { "font-weight": "bold" } : {}),
     ...(style.italic ? { "font-style": "italic" } : {}),

@@ -74,9 +74,22 @@ export function displayParts(symbol: string): SymbolParts {
   }
 }
 
+const partsCache = new Map<string, SymbolParts>();
+
+function cachedParts(symbol: string): SymbolParts {
+  let p = partsCache.get(symbol);
+  if (!p) {
+    p = displayParts(symbol);
+    // A book has a few hundred distinct symbols; the bound only guards against pathological input.
+    if (partsCache.size > 5000) partsCache.clear();
+    partsCache.set(symbol, p);
+  }
+  return p;
+}
+
 /** Estimated drawn width of a chord symbol at a font size, following its display parts. */
 export function estimateSymbolWidth(symbol: string, fontSize: number): number {
-  const p = displayParts(symbol);
+  const p = cachedParts(symbol);
   const main = textWidth(p.root + p.accidental + p.quality, fontSize);
   const sup = textWidth(p.superscript, fontSize * SUPERSCRIPT_SCALE);
   const bass = p.bass ? textWidth("/" + p.bass, fontSize) : 0;

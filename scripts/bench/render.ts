@@ -51,6 +51,12 @@ window.pp = {
     engravePage(h, { layout, page: layout.pages[0], writtenKey: "F", text });
     return performance.now() - t0;
   },
+  layoutOnly(n) {
+    const arr = arrangement(n);
+    const t0 = performance.now();
+    layoutChart(arr, { width: W, height: H });
+    return performance.now() - t0;
+  },
   raw(n) {
     const layout = layoutChart(arrangement(n), { width: W, height: H });
     const page = layout.pages[0];
@@ -135,24 +141,27 @@ async function main() {
     await page.goto(`http://127.0.0.1:${PORT}/`);
     await page.waitForFunction(() => "pp" in window);
     await page.evaluate(() => (window as unknown as { pp: { ready: () => Promise<void> } }).pp.ready());
-    type PP = { layoutAndDraw: (n: number) => number; raw: (n: number) => number; flipSetup: (n: number) => Promise<number> };
+    type PP = { layoutOnly: (n: number) => number; layoutAndDraw: (n: number) => number; raw: (n: number) => number; flipSetup: (n: number) => Promise<number> };
     console.log(`render bench · Chromium headless · 1024×768 · medians of ${RUNS} runs`);
-    console.log("bars | layout+draw page 1 (ms) | raw VexFlow same staves (ms) | ratio");
+    console.log("bars | layout+draw page 1 (ms) | raw VexFlow same staves (ms) | ratio | layout alone (ms)");
     for (const n of [32, 64, 128]) {
       const ours: number[] = [];
       const raw: number[] = [];
+      const lay: number[] = [];
       for (let i = 0; i < RUNS + 3; i++) {
         // Alternate the two so warm-up and GC pauses fall on both alike; drop the first rounds.
         const a = await page.evaluate((k) => (window as unknown as { pp: PP }).pp.layoutAndDraw(k), n);
         const b = await page.evaluate((k) => (window as unknown as { pp: PP }).pp.raw(k), n);
+        const c = await page.evaluate((k) => (window as unknown as { pp: PP }).pp.layoutOnly(k), n);
         if (i >= 3) {
+          lay.push(c);
           ours.push(a);
           raw.push(b);
         }
       }
       const mo = median(ours);
       const mr = median(raw);
-      console.log(`${String(n).padStart(4)} | ${mo.toFixed(2).padStart(24)} | ${mr.toFixed(2).padStart(28)} | ${(mo / mr).toFixed(2)}×`);
+      console.log(`${String(n).padStart(4)} | ${mo.toFixed(2).padStart(24)} | ${mr.toFixed(2).padStart(28)} | ${(mo / mr).toFixed(2)}× | ${median(lay).toFixed(2)}`);
     }
     if (process.argv.includes("--shots")) {
       fs.mkdirSync(path.join(root, "test-results/screenshots"), { recursive: true });
