@@ -28,14 +28,27 @@ function parseMeter(meter: string): Chart["meter"] {
   return { beats: beats ?? 4, unit: (unit === 2 || unit === 8 ? unit : 4) as 2 | 4 | 8 };
 }
 
+function missingHeaderLines(input: Pick<ChartInput, "title" | "key" | "meter" | "sourceText">): string[] {
+  const has = (name: string) => new RegExp(`^\\s*${name}\\s*:`, "im").test(input.sourceText);
+  const lines: string[] = [];
+  if (!has("title")) lines.push(`title: ${input.title}`);
+  if (!has("key")) lines.push(`key: ${input.key}`);
+  if (!has("time")) lines.push(`time: ${input.meter}`);
+  return lines;
+}
+
 export function prepareChart(input: Pick<ChartInput, "title" | "composer" | "key" | "meter" | "tempo" | "feel" | "sourceText">): PreparedChart {
+  // The text may leave its header to the form's fields; supply the missing lines so the parser
+  // knows the meter, and shift error lines back so they point into the text as written.
+  const header = missingHeaderLines(input);
   let parsed: Chart;
   try {
-    parsed = parseChartText(input.sourceText);
+    parsed = parseChartText(header.length ? `${header.join("\n")}\n${input.sourceText}` : input.sourceText);
   } catch (err) {
     if (err instanceof ChartTextError) {
-      throw new AppError("unprocessable", `Line ${err.line}, column ${err.column}: ${err.message}`, {
-        fields: [{ field: "sourceText", message: err.message, line: err.line, column: err.column }],
+      const line = Math.max(1, err.line - header.length);
+      throw new AppError("unprocessable", `Line ${line}, column ${err.column}: ${err.message}`, {
+        fields: [{ field: "sourceText", message: err.message, line, column: err.column }],
       });
     }
     throw err;
