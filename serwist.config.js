@@ -6,6 +6,12 @@ import { serwist } from "@serwist/next/config";
 
 const distDir = process.env.NEXT_DIST_DIR || ".next";
 
+/** Same rule as lib/offline/sw-url.ts (the page registers this name). */
+function serviceWorkerFile(dir) {
+  const d = dir.replace(/^(\.\/)*\.?/, "").replace(/\/+$/, "");
+  return !d || d === "next" ? "sw.js" : `sw-${d.replace(/[^A-Za-z0-9-]+/g, "-")}.js`;
+}
+
 /** Routes under app/bands that need the network (server-rendered, leader-only screens). */
 const ONLINE_ONLY = [/\/members(\/|$)/];
 
@@ -24,11 +30,13 @@ const buildId = fs.existsSync(path.join(distDir, "BUILD_ID")) ? fs.readFileSync(
 
 export default serwist({
   swSrc: "worker/sw.ts",
-  swDest: "public/sw.js",
+  swDest: `public/${serviceWorkerFile(distDir)}`,
   globPatterns: [
     `${distDir}/static/**/*.{js,css,woff2,woff,svg,png,ico,webp,json,webmanifest}`,
     "public/**/*.{svg,png,ico,webp,woff2,json,webmanifest,txt}",
   ],
+  // Other builds' worker scripts in public/ are not part of this one.
+  globIgnores: ["public/sw*.js", "public/sw*.js.map"],
   maximumFileSizeToCacheInBytes: 6 * 1024 * 1024,
   esbuildOptions: {
     define: {

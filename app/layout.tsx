@@ -2,6 +2,7 @@ import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
 import "./globals.css";
 import { SerwistProvider } from "@serwist/next/react";
+import { serviceWorkerUrl } from "@/lib/offline/sw-url";
 
 const text = localFont({
   src: [
@@ -30,7 +31,7 @@ export default function RootLayout({ children }: { children: React.ReactNode }) 
     <html lang="en" className={text.variable}>
       <body className="min-h-screen font-sans antialiased">
         {/* The service worker keeps the app usable with no signal (worker/sw.ts). The book itself syncs into IndexedDB. */}
-        <SerwistProvider swUrl="/sw.js" disable={process.env.NODE_ENV === "development"} reloadOnOnline={false} cacheOnNavigation={false}>
+        <SerwistProvider swUrl={serviceWorkerUrl(process.env.NEXT_DIST_DIR)} disable={process.env.NODE_ENV === "development"} reloadOnOnline={false} cacheOnNavigation={false}>
           {children}
         </SerwistProvider>
       </body>

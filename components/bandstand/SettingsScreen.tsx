@@ -1,5 +1,6 @@
 "use client";
 // Reading settings for this device: which keys a page-turn pedal sends, the bandstand light, half turns.
+import Link from "next/link";
 import { useEffect, useState } from "react";
 import { Button } from "@/components/ui/Button";
 import { PageColumn, PageTitle } from "@/components/ui/Page";
@@ -65,6 +66,9 @@ export function SettingsScreen() {
   const setTheme = (theme: Theme) => saveReadingSettings({ ...settings, theme });
   return (
     <PageColumn>
+      <Link href="/bands" className="mb-2 inline-block text-sm text-ink-muted underline-offset-4 hover:underline">
+        ← Your bands
+      </Link>
       <PageTitle lead="Kept on this device only: each stand has its own pedal and its own light.">Reading settings</PageTitle>
       <div className="flex flex-col gap-5">
         <KeyList which="nextKeys" title="Keys that turn forward" settings={settings} />

@@ -47,7 +47,7 @@ export function addText(ctx: RenderContext, text: string, x: number, y: number, 
 
 export function drawChordSymbol(ctx: RenderContext, symbol: string, x: number, y: number, size: number) {
   const p = symbol === "N.C." ? { ...splitSymbol(symbol), root: "N.C." } : chordParts(symbol);
-  const t = addText(ctx, p.root + p.accidental + p.quality, x, y, { size, cls: "pp-chord" });
+  const t = addText(ctx, p.root + p.accidental + p.quality, x, y, { size, bold: true, cls: "pp-chord" });
   t.setAttribute("data-symbol", symbol);
   if (p.superscript) {
     const sup = el("tspan", { "font-size": Math.round(size * SUPERSCRIPT_SCALE), dy: -Math.round(size * 0.38) });

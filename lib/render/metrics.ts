@@ -52,6 +52,7 @@ export function prettyAlterations(s: string): string {
 
 /** Width of one character in em, by class: caps, narrow marks, digits and lower case, accidentals. */
 function charEm(ch: string): number {
+  if (/[MW]/.test(ch)) return 1.0;
   if (/[A-Z]/.test(ch)) return 0.76;
   if (/[mw]/.test(ch)) return 0.86;
   if (/[il1.()\/|]/.test(ch)) return 0.4;

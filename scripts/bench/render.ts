@@ -12,10 +12,11 @@ import { chromium } from "playwright-core";
 
 const root = path.resolve(import.meta.dirname, "../..");
 const PORT = Number(process.env.BENCH_RENDER_PORT ?? 3401);
-const RUNS = Number(process.env.BENCH_RUNS ?? 21);
+const RUNS = Number(process.env.BENCH_RUNS ?? 41);
 
 const entry = `
 import { layoutChart } from "@/lib/render/layout";
+import { estimateSymbolWidth } from "@/lib/render/metrics";
 import { engravePage } from "@/components/chart/engrave";
 import { drawSheets, musicFontsReady } from "@/components/chart/draw-sheets";
 import { PageFlipper } from "@/components/bandstand/flipper";
@@ -50,6 +51,35 @@ window.pp = {
     const layout = layoutChart(arr, { width: W, height: H });
     engravePage(h, { layout, page: layout.pages[0], writtenKey: "F", text });
     return performance.now() - t0;
+  },
+  /** Largest drawn width / estimated width over many symbols: must stay ≤ 1 for "never overlapping". */
+  widthMargin() {
+    const symbols = ["Ebmaj7", "Cm7", "Bb7sus4", "Db7(#11)", "C7(b9)", "F#m7b5", "Abm(maj7)", "G13(b9,#11)", "Bbmaj7/D", "Edim7", "N.C.", "Wmmm", "A7alt", "Gb6/9"];
+    const layout = layoutChart({ bars: symbols.map((symbol, i) => ({ index: i, part: "form", section: null, chords: [{ symbol, beat: 0, beats: 4 }], simile: false, repeatStart: false, repeatEnd: false, ending: null, barline: "single", source: null })), instrument: "concert", concertKey: "C", writtenKey: "C", meter: { beats: 4, unit: 4 }, intro: null }, { width: W, height: 4000 });
+    const h = host();
+    engravePage(h, { layout, page: layout.pages[0], writtenKey: "C", text });
+    let worst = { ratio: 0, symbol: "" };
+    for (const t of h.querySelectorAll(".pp-chord")) {
+      const sym = t.getAttribute("data-symbol");
+      const ratio = t.getBBox().width / estimateSymbolWidth(sym, layout.chordFontSize);
+      if (ratio > worst.ratio) worst = { ratio, symbol: sym };
+    }
+    return worst;
+  },
+  /** A bar with a melody is drawn with its notes (a check that the path runs, with a screenshot). */
+  melody() {
+    const mel = [
+      { pitch: "G4", duration: "q", dots: 0, tie: false }, { pitch: "Bb4", duration: "8", dots: 0, tie: false },
+      { pitch: "C5", duration: "8", dots: 0, tie: true }, { pitch: "C5", duration: "h", dots: 0, tie: false },
+    ];
+    const rest = [{ pitch: null, duration: "h", dots: 0, tie: false }, { pitch: "F#4", duration: "h", dots: 0, tie: false }];
+    const arr = arrangement(8);
+    arr.bars[4].melody = mel;
+    arr.bars[5].melody = rest;
+    const layout = layoutChart(arr, { width: W, height: H });
+    const h = host();
+    engravePage(h, { layout, page: layout.pages[0], writtenKey: "F", text });
+    return h.querySelectorAll(".vf-stavenote").length;
   },
   layoutOnly(n) {
     const arr = arrangement(n);
@@ -163,11 +193,16 @@ async function main() {
       const mr = median(raw);
       console.log(`${String(n).padStart(4)} | ${mo.toFixed(2).padStart(24)} | ${mr.toFixed(2).padStart(28)} | ${(mo / mr).toFixed(2)}× | ${median(lay).toFixed(2)}`);
     }
+    const notes = await page.evaluate(() => (window as unknown as { pp: { melody: () => number } }).pp.melody());
+    console.log(`melody check: ${notes} melody notes drawn (6 expected)`);
     if (process.argv.includes("--shots")) {
+      await page.screenshot({ path: path.join(root, "test-results/screenshots/bench-melody.png") });
       fs.mkdirSync(path.join(root, "test-results/screenshots"), { recursive: true });
       await page.evaluate(() => (window as unknown as { pp: PP }).pp.layoutAndDraw(64));
       await page.screenshot({ path: path.join(root, "test-results/screenshots/bench-page1.png") });
     }
+    const margin = await page.evaluate(() => (window as unknown as { pp: { widthMargin: () => { ratio: number; symbol: string } } }).pp.widthMargin());
+    console.log(`chord symbols: widest drawn/estimated width ${margin.ratio.toFixed(2)} (${margin.symbol}); ≤ 1 means the layout's boxes hold them`);
     const pages = await page.evaluate(() => (window as unknown as { pp: PP }).pp.flipSetup(128));
     for (let i = 0; i < 40; i++) {
       await page.keyboard.press("PageDown");

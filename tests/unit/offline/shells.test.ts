@@ -2,6 +2,7 @@
 import { describe, expect, it } from "vitest";
 import { matchShell } from "@/worker/shells";
 import { parseBandPath } from "@/lib/offline/route";
+import { serviceWorkerUrl } from "@/lib/offline/sw-url";
 
 const SHELLS = ["/bands", "/bands/_", "/bands/_/charts/_", "/bands/_/charts/_/bandstand", "/bands/_/charts/_/edit", "/bands/_/charts/new", "/bands/_/setlists", "/bands/_/setlists/_", "/bands/_/setlists/_/play"];
 
@@ -27,5 +28,14 @@ describe("matching an address to a page shell", () => {
   it("a shell's placeholder ids read as no id, and a real address gives its ids", () => {
     expect(parseBandPath("/bands/_/charts/_")).toEqual({ bandId: null, chartId: null, setlistId: null });
     expect(parseBandPath("/bands/b1/charts/c9/bandstand")).toEqual({ bandId: "b1", chartId: "c9", setlistId: null });
+  });
+});
+
+describe("the worker script's address", () => {
+  it("is /sw.js for the default build and its own name for a build in another folder", () => {
+    expect(serviceWorkerUrl(undefined)).toBe("/sw.js");
+    expect(serviceWorkerUrl(".next")).toBe("/sw.js");
+    expect(serviceWorkerUrl(".next-offline")).toBe("/sw-next-offline.js");
+    expect(serviceWorkerUrl("./.next-ui/")).toBe("/sw-next-ui.js");
   });
 });

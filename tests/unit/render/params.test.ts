@@ -5,10 +5,11 @@ const read = (q: string) => parseChartParams(new URLSearchParams(q));
 
 describe("chart address parameters", () => {
   it("reads the part, a singer's key and an intro with its options", () => {
-    expect(read("instrument=bb&key=F&intro=vamp&introBars=4&introRepeats=2&vamp=Cm7,F7")).toEqual({
+    // The vamp's two chords are split on a space: symbols such as C7(b9,#11) hold commas.
+    expect(read("instrument=bb&key=F&intro=vamp&introBars=4&introRepeats=2&vamp=Cm7+F7(b9,%2311)")).toEqual({
       instrument: "bb",
       key: "F",
-      intro: { kind: "vamp", bars: 4, repeats: 2, vamp: ["Cm7", "F7"] },
+      intro: { kind: "vamp", bars: 4, repeats: 2, vamp: ["Cm7", "F7(b9,#11)"] },
     });
   });
 
