@@ -101,6 +101,8 @@ export function ChartScreen() {
                 width={size.width}
                 height={size.height}
                 label={`${chart.title}, ${performance.text.partLabel}`}
+                // A desk or laptop reads from closer than a stand: smaller pages, more lines each.
+                layout={{ zoom: size.width >= 1000 ? 1.1 : 1 }}
                 controls={controls}
                 marks={marks}
                 onView={(_, page, pages, atStart, atEnd) => setCounter({ page, pages, atStart, atEnd })}

@@ -91,7 +91,7 @@ export function IntroPicker({
     <fieldset data-testid="intro-picker" className="flex min-w-0 flex-col gap-2">
       <legend className="mb-1 font-semibold">How it starts</legend>
       <label className={cx("flex gap-3 rounded-md border p-3", value === null ? "border-brass bg-brass-light/40" : "border-paper-dim")}>
-        <input type="radio" name={name} value="" checked={value === null} onChange={() => onChange(null)} className="mt-1 size-5" />
+        <input type="radio" name={name} value="" checked={value === null} onChange={() => onChange(null)} className="mt-1 size-5 shrink-0" />
         <span>
           <span className="font-semibold">Straight from the top</span>
           <span className="block text-sm text-ink-muted">No intro: the count-off, then bar 1.</span>
@@ -104,7 +104,7 @@ export function IntroPicker({
           data-fits={o.fits}
           className={cx("flex gap-3 rounded-md border p-3", value === o.kind ? "border-brass bg-brass-light/40" : "border-paper-dim")}
         >
-          <input type="radio" name={name} value={o.kind} checked={value === o.kind} onChange={() => onChange(o.kind)} className="mt-1 size-5" />
+          <input type="radio" name={name} value={o.kind} checked={value === o.kind} onChange={() => onChange(o.kind)} className="mt-1 size-5 shrink-0" />
           <span className="min-w-0">
             <span className="font-semibold">{INTRO_NAMES[o.kind]}</span>{" "}
             <span className={cx("text-sm font-semibold", o.fits ? "text-green-800" : "text-red-800")}>{o.fits ? "suits this tune" : "doesn't suit"}</span>

@@ -54,7 +54,7 @@ export function prettyAlterations(s: string): string {
 function charEm(ch: string): number {
   if (/[MW]/.test(ch)) return 1.0;
   if (/[A-Z]/.test(ch)) return 0.76;
-  if (/[mw]/.test(ch)) return 0.86;
+  if (/[mw]/.test(ch)) return 0.95;
   if (/[il1.()\/|]/.test(ch)) return 0.4;
   if (/[♭♯°ø+Δ-]/.test(ch)) return 0.62;
   return 0.6;
@@ -94,7 +94,9 @@ export function estimateSymbolWidth(symbol: string, fontSize: number): number {
   const main = textWidth(p.root + p.accidental + p.quality, fontSize);
   const sup = textWidth(p.superscript, fontSize * SUPERSCRIPT_SCALE);
   const bass = p.bass ? textWidth("/" + p.bass, fontSize) : 0;
-  return Math.ceil(main + sup + bass + (p.superscript ? 2 : 0));
+  // Text that is not a chord symbol (a stray word) is set whole and bold; leave it extra room.
+  const unread = !/^[A-G]/.test(symbol) && symbol !== "N.C." ? 1.3 : 1;
+  return Math.ceil((main + sup + bass + (p.superscript ? 2 : 0)) * unread);
 }
 
 /** Width of a line's opening: clef, key signature, and the time signature on the chart's first line. */

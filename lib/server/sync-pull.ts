@@ -159,7 +159,7 @@ export async function pullChanges(db: Kysely<Database>, actor: Actor | null, ban
     ids[r.entity]!.push(r.entity_id);
     picked.add(r.seq);
   }
-  const charts = await loadCharts(db, bandId, ids.chart!);
+  const charts = await loadCharts(db, bandId, ids.chart!, { since, until: seq });
   const attachments = await loadAttachments(db, bandId, ids.attachment!);
   // Set lists and marks come from their own module, which knows what a sub may see of them.
   const setlists = byId(await loadSetlistFeedRows(db, m, ids.setlist!, now));

@@ -22,34 +22,83 @@ function splice(text: string | null): string {
   return text;
 }
 
-export async function loadCharts(db: Kysely<Database>, bandId: string, ids: string[]): Promise<Loaded> {
-  const out: Loaded = new Map();
-  if (ids.length === 0) return out;
-  const rows = await db
-    .selectFrom("charts as c")
-    .leftJoin("users as u", "u.id", "c.updated_by")
-    .select([
-      "c.id", "c.band_id", "c.title", "c.composer", "c.concert_key", "c.meter", "c.tempo", "c.feel", "c.body_json",
-      "c.source_text", "c.revision", "c.updated_at", "c.updated_by", "c.deleted_at", "u.name as updated_by_name",
-    ])
-    .where("c.id", "in", ids)
-    .where("c.deleted_at", "is", null)
-    .execute()
-    // The band is checked here, not in SQL: a band_id condition makes SQLite walk the band's whole book.
-    .then((all) => all.filter((c) => c.band_id === bandId));
-  if (rows.length === 0) return out;
-  const revs = await db
+/** A page of the feed, (since, until]: charts are found by joining it, a fixed-shape query. */
+export interface FeedRange {
+  since: number;
+  until: number;
+}
+
+const CHART_COLUMNS = [
+  "c.id", "c.band_id", "c.title", "c.composer", "c.concert_key", "c.meter", "c.tempo", "c.feel", "c.body_json",
+  "c.source_text", "c.revision", "c.updated_at", "c.updated_by", "c.deleted_at", "u.name as updated_by_name",
+] as const;
+const REVISION_COLUMNS = [
+  "r.chart_id", "r.revision", "r.title", "r.message", "r.created_at", "r.source_text", "r.meta_json", "c.revision as current", "u.name as author_name",
+] as const;
+
+async function chartRows(db: Kysely<Database>, bandId: string, ids: string[], range?: FeedRange) {
+  if (range) {
+    return db
+      .selectFrom("changes as ch")
+      .innerJoin("charts as c", "c.id", "ch.entity_id")
+      .leftJoin("users as u", "u.id", "c.updated_by")
+      .select(CHART_COLUMNS)
+      .where("ch.band_id", "=", bandId)
+      .where("ch.entity", "=", "chart")
+      .where("ch.seq", ">", range.since)
+      .where("ch.seq", "<=", range.until)
+      .where("c.deleted_at", "is", null)
+      .execute();
+  }
+  return db.selectFrom("charts as c").leftJoin("users as u", "u.id", "c.updated_by").select(CHART_COLUMNS).where("c.id", "in", ids).where("c.deleted_at", "is", null).execute();
+}
+
+async function revisionRows(db: Kysely<Database>, ids: string[], range?: FeedRange, bandId?: string) {
+  if (range && bandId) {
+    return db
+      .selectFrom("changes as ch")
+      .innerJoin("charts as c", "c.id", "ch.entity_id")
+      .innerJoin("chart_revisions as r", "r.chart_id", "c.id")
+      .leftJoin("users as u", "u.id", "r.author_id")
+      .select(REVISION_COLUMNS)
+      .where("ch.band_id", "=", bandId)
+      .where("ch.entity", "=", "chart")
+      .where("ch.seq", ">", range.since)
+      .where("ch.seq", "<=", range.until)
+      .where((eb) => eb("r.revision", ">", eb(eb.ref("c.revision"), "-", HISTORY_LIMIT)))
+      .orderBy("r.chart_id")
+      .orderBy("r.revision", "desc")
+      .execute();
+  }
+  return db
     .selectFrom("chart_revisions as r")
     .innerJoin("charts as c", "c.id", "r.chart_id")
     .leftJoin("users as u", "u.id", "r.author_id")
-    .select(["r.chart_id", "r.revision", "r.title", "r.message", "r.created_at", "r.source_text", "r.meta_json", "c.revision as current", "u.name as author_name"])
-    .where("r.chart_id", "in", rows.map((r) => r.id))
+    .select(REVISION_COLUMNS)
+    .where("r.chart_id", "in", ids)
     .where((eb) => eb("r.revision", ">", eb(eb.ref("c.revision"), "-", HISTORY_LIMIT)))
     .orderBy("r.chart_id")
     .orderBy("r.revision", "desc")
     .execute();
+}
+
+/**
+ * The charts `ids` (all in `range` when given: the pull passes its page, the push one id).
+ * The band is checked here, not in SQL: a band_id condition on charts makes SQLite walk the whole book.
+ */
+export async function loadCharts(db: Kysely<Database>, bandId: string, ids: string[], range?: FeedRange): Promise<Loaded> {
+  const out: Loaded = new Map();
+  if (ids.length === 0) return out;
+  const wanted = new Set(ids);
+  const rows = (await chartRows(db, bandId, ids, range)).filter((c) => c.band_id === bandId && wanted.has(c.id));
+  if (rows.length === 0) return out;
+  const revs = await revisionRows(db, ids, range, bandId);
   const history = new Map<string, string[]>();
+  const seenRev = new Set<string>();
   for (const r of revs) {
+    const key = `${r.chart_id}:${r.revision}`;
+    if (!wanted.has(r.chart_id) || seenRev.has(key)) continue;
+    seenRev.add(key);
     const list = history.get(r.chart_id) ?? [];
     list.push(
       `{"revision":${r.revision},"title":${s(r.title)},"message":${s(r.message)},"authorName":${s(r.author_name ?? "")},` +
