@@ -19,7 +19,7 @@ describe("running out of storage", () => {
     for (let i = 0; i < 3; i++) await createChart(db, cast.leader, cast.bandId, chartInput({ title: `Full ${i}` }));
     const book = new LocalBook(`quota-${randomUUID()}`, { indexedDB, IDBKeyRange });
     const engine = new SyncEngine({ book: () => book, transport: fakeNetwork(db, () => cast.player) });
-    const real = book.charts.bulkPut.bind(book.charts);
+    const originalBulkPut = book.charts.bulkPut.bind(book.charts);
     const spy = vi.spyOn(book.charts, "bulkPut").mockImplementation(() => {
       throw new DOMException("The quota has been exceeded.", "QuotaExceededError");
     });
@@ -28,7 +28,7 @@ describe("running out of storage", () => {
     expect(await book.charts.count()).toBe(0);
     expect(await book.revisions.count()).toBe(0);
     expect((await book.syncState.get(cast.bandId))?.cursor ?? 0).toBe(0);
-    spy.mockImplementation(real);
+    spy.mockImplementation(originalBulkPut);
     await engine.sync();
     expect(engine.getSnapshot().problem).toBeUndefined();
     expect(await book.charts.count()).toBe(3);
