@@ -185,6 +185,14 @@ export interface SignInTokensTable {
   used_at: string | null;
 }
 
+/** Where the band's last "charts updated" notice stopped in the change feed. */
+export interface BandDigestsTable {
+  band_id: string;
+  last_seq: number;
+  sent_at: string;
+  sent_by: string;
+}
+
 export interface Database {
   users: UsersTable;
   bands: BandsTable;
@@ -202,6 +210,7 @@ export interface Database {
   subscriptions: SubscriptionsTable;
   login_attempts: LoginAttemptsTable;
   sign_in_tokens: SignInTokensTable;
+  band_digests: BandDigestsTable;
 }
 
 export type User = Selectable<UsersTable>;

@@ -8,6 +8,7 @@ import type { BarMark } from "@/lib/setlist/marks";
 import { useOnline } from "@/lib/offline/hooks";
 import { PagedChart, type PagedChartControls } from "@/components/chart/PagedChart";
 import { buildPerformance } from "@/components/chart/performance";
+import { introInWords } from "@/lib/setlist";
 import { cx } from "@/components/ui/cx";
 import { saveReadingSettings, useReadingSettings, type Theme } from "./settings";
 import { usePedalKeys } from "./usePedalKeys";
@@ -24,6 +25,10 @@ export interface BandstandTune {
   label?: string;
   /** What comes after this tune ("Next: Copper Kettle"), shown in the bar. */
   next?: string;
+  /** Title of the tune that follows, for the slim header at the top ("next: Copper Kettle"). */
+  nextTitle?: string;
+  /** Tonight's intro in a few words; absent: worked out from the intro choice. */
+  introText?: string;
   /** The reader's personal marks on this chart, keyed by `${section}:${bar}`. */
   marks?: ReadonlyMap<string, BarMark>;
 }
@@ -38,6 +43,17 @@ export interface BandstandProps {
 }
 
 const BAR_HEIGHT = 44;
+
+function prettyKey(k: string): string {
+  return k.replace("b", "♭").replace("#", "♯");
+}
+
+/** The header's intro words: tonight's choice, the chart's own intro, or none. */
+function introWords(tune: BandstandTune, ownIntroBars: number | null): string {
+  if (tune.introText) return tune.introText;
+  if (tune.intro) return introInWords(tune.intro);
+  return tune.intro === undefined && ownIntroBars ? `the tune's own, ${ownIntroBars} bars` : "none";
+}
 const THEME_CLASS: Record<Theme, string> = { stage: "pp-theme-stage", ember: "pp-theme-ember" };
 
 export function Bandstand({ tunes, instrument, start = 0, exitHref, onTuneChange }: BandstandProps) {
@@ -46,15 +62,30 @@ export function Bandstand({ tunes, instrument, start = 0, exitHref, onTuneChange
   const [index, setIndex] = useState(() => Math.min(Math.max(0, start), Math.max(0, tunes.length - 1)));
   const [size, setSize] = useState({ width: 0, height: 0 });
   const [ends, setEnds] = useState({ atStart: true, atEnd: true });
+  // Backing out of a tune's first page opens the previous tune at its last page, as the band reads it.
+  const [entry, setEntry] = useState<"first" | "last">("first");
   const controls = useRef<PagedChartControls>(null);
+  const head = useRef<HTMLElement>(null);
   const counter = useRef<HTMLSpanElement>(null);
   useWakeLock();
 
   useEffect(() => {
-    const measure = () => setSize({ width: window.innerWidth, height: window.innerHeight - BAR_HEIGHT });
+    // The header wraps onto a second line on a phone; the page gets whatever room is left.
+    const measure = () => {
+      const top = head.current?.offsetHeight ?? 0;
+      setSize((s) => {
+        const next = { width: window.innerWidth, height: window.innerHeight - BAR_HEIGHT - top };
+        return s.width === next.width && s.height === next.height ? s : next;
+      });
+    };
     measure();
+    const ro = typeof ResizeObserver === "undefined" ? null : new ResizeObserver(measure);
+    if (head.current) ro?.observe(head.current);
     window.addEventListener("resize", measure);
-    return () => window.removeEventListener("resize", measure);
+    return () => {
+      ro?.disconnect();
+      window.removeEventListener("resize", measure);
+    };
   }, []);
 
   const tune = tunes[index];
@@ -73,6 +104,7 @@ export function Bandstand({ tunes, instrument, start = 0, exitHref, onTuneChange
       const moved = delta > 0 ? controls.current?.next() : controls.current?.back();
       // In a set, the same pedal goes on from a tune's last page to the next tune's first.
       if (moved === false && index + delta >= 0 && index + delta <= last) {
+        setEntry(delta > 0 ? "first" : "last");
         setIndex(index + delta);
         onTuneChange?.(index + delta);
       }
@@ -84,14 +116,39 @@ export function Bandstand({ tunes, instrument, start = 0, exitHref, onTuneChange
 
   const goTune = (i: number) => {
     if (i < 0 || i >= tunes.length || i === index) return;
+    setEntry("first");
     setIndex(i);
     onTuneChange?.(i);
   };
   const setTheme = (theme: Theme) => saveReadingSettings({ ...settings, theme });
   const toggleHalf = () => saveReadingSettings({ ...settings, halfTurns: !settings.halfTurns });
 
+  const concertKey = performance?.arrangement.concertKey ?? tune?.key ?? tune?.chart.key ?? "";
+  const writtenKey = performance?.arrangement.writtenKey ?? concertKey;
+  const keyText = writtenKey === concertKey ? `Key ${prettyKey(concertKey)}` : `Key ${prettyKey(concertKey)} concert · ${prettyKey(writtenKey)} written`;
+  const ownIntroBars = tune?.intro === undefined ? (performance?.arrangement.intro?.bars.length ?? null) : null;
+
   return (
     <div className={cx("pp-bandstand", THEME_CLASS[settings.theme])} data-testid="bandstand" data-theme={settings.theme}>
+      <section ref={head} className="pp-bandstand-head" aria-label="Tune at a glance" data-testid="tune-head">
+        <p className="pp-head-line">
+          <span className="pp-head-title" data-testid="head-title">
+            {tune?.chart.title}
+          </span>
+          {tune?.nextTitle ? (
+            <span className="pp-head-next" data-testid="head-next">
+              next: {tune.nextTitle}
+            </span>
+          ) : null}
+        </p>
+        {tune ? (
+          <p className="pp-head-line pp-head-details">
+            <span data-testid="head-key">{keyText}</span>
+            {tune.chart.tempo ? <span data-testid="head-tempo">♩ = {tune.chart.tempo}</span> : null}
+            <span className="pp-head-intro" data-testid="head-intro">Intro: {introWords(tune, ownIntroBars)}</span>
+          </p>
+        ) : null}
+      </section>
       {performance && tune ? (
         <div className="pp-bandstand-stage" style={{ height: size.height }}>
           <PagedChart
@@ -101,6 +158,7 @@ export function Bandstand({ tunes, instrument, start = 0, exitHref, onTuneChange
             width={size.width}
             height={size.height}
             halfTurns={settings.halfTurns}
+            startPage={entry === "last" ? "last" : 1}
             marks={tune.marks}
             label={`${tune.chart.title}, ${performance.text.partLabel}`}
             controls={controls}

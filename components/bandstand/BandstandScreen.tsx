@@ -31,7 +31,9 @@ export function BandstandScreen() {
       return c ? [{ id, tune: { chart: c.body } as BandstandTune }] : [];
     });
     const at = listed.findIndex((t) => t.id === local.id);
-    return at < 0 ? { tunes: [own], start: 0 } : { tunes: listed.map((t, i) => ({ ...t.tune, label: `${i + 1}. ${t.tune.chart.title}` })), start: at };
+    if (at < 0) return { tunes: [own], start: 0 };
+    const tunes = listed.map((t, i) => ({ ...t.tune, label: `${i + 1}. ${t.tune.chart.title}`, nextTitle: listed[i + 1]?.tune.chart.title }));
+    return { tunes, start: at };
   }, [local, charts, ids, choices.key, choices.intro]);
 
   if (!bandId || !chartId) return null;

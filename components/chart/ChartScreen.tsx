@@ -26,7 +26,7 @@ export function ChartScreen() {
   const membership = useMembership(bandId);
   const choices = useChoices(bandId, membership?.instrument);
   const [box, setBox] = useState<HTMLDivElement | null>(null);
-  const size = useBoxSize(box, { bottom: 72 });
+  const size = useBoxSize(box, { bottom: 60 });
   const controls = useRef<PagedChartControls>(null);
   const [counter, setCounter] = useState({ page: 1, pages: 1, atStart: true, atEnd: true });
 
@@ -39,11 +39,13 @@ export function ChartScreen() {
   const performance = useMemo(() => {
     if (!chart) return null;
     try {
-      return { ok: true as const, ...buildPerformance({ chart, instrument: choices.instrument, key: choices.key, intro: choices.intro }) };
+      // A set list's tempo for tonight replaces the chart's own in the title block.
+      const played = choices.tempo ? { ...chart, tempo: choices.tempo } : chart;
+      return { ok: true as const, ...buildPerformance({ chart: played, instrument: choices.instrument, key: choices.key, intro: choices.intro }) };
     } catch (e) {
       return { ok: false as const, message: e instanceof Error ? e.message : String(e) };
     }
-  }, [chart, choices.instrument, choices.key, choices.intro]);
+  }, [chart, choices.instrument, choices.key, choices.tempo, choices.intro]);
   const intros = useMemo<IntroResult[]>(() => {
     if (!chart) return [];
     try {
@@ -67,13 +69,13 @@ export function ChartScreen() {
 
   const base = `/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(chartId)}`;
   return (
-    <main id="main" className="mx-auto w-full max-w-7xl px-3 py-4 sm:px-6">
-      <div className="no-print mb-3 flex flex-wrap items-center justify-between gap-3">
-        <div className="min-w-0">
+    <main id="main" className="mx-auto w-full max-w-7xl px-3 py-2 sm:px-6">
+      <div className="no-print mb-2 flex flex-wrap items-center justify-between gap-x-3 gap-y-2">
+        <div className="flex min-w-0 items-baseline gap-3">
           <Link href={`/bands/${encodeURIComponent(bandId)}`} className="text-sm text-ink-muted underline-offset-4 hover:underline">
             ← Library
           </Link>
-          <h1 className="truncate text-2xl font-bold tracking-tight">{chart.title}</h1>
+          <h1 className="truncate text-xl font-bold tracking-tight">{chart.title}</h1>
         </div>
         <div className="flex flex-wrap gap-2">
           <Link href={`${base}/bandstand${choices.query}`} className={buttonClass("primary")} data-testid="open-bandstand">
@@ -102,7 +104,7 @@ export function ChartScreen() {
                 height={size.height}
                 label={`${chart.title}, ${performance.text.partLabel}`}
                 // A desk or laptop reads from closer than a stand: smaller pages, more lines each.
-                layout={{ zoom: size.width >= 1000 ? 1.1 : 1 }}
+                layout={{ zoom: size.width >= 1000 ? 1.1 : 1, compact: true }}
                 controls={controls}
                 marks={marks}
                 onView={(_, page, pages, atStart, atEnd) => setCounter({ page, pages, atStart, atEnd })}
@@ -126,13 +128,14 @@ export function ChartScreen() {
           </div>
         </section>
 
-        <aside className="no-print flex flex-col gap-5" aria-label="Reading choices">
+        <aside className="no-print flex min-w-0 flex-col gap-5" aria-label="Reading choices">
           <InstrumentPicker value={choices.instrument} onChange={choices.setInstrument} />
           <KeyPicker chartKey={chart.key} value={choices.key ?? chart.key} onChange={choices.setKey} />
           <IntroPicker
             value={choices.intro === undefined ? (chart.intro ? "composed" : null) : (choices.intro?.kind ?? null)}
             options={intros}
             onChange={(kind) => choices.setIntro(kind ? { kind } : null)}
+            part={{ chartKey: chart.key, concertKey: choices.key ?? chart.key, instrument: choices.instrument }}
           />
         </aside>
       </div>

@@ -25,6 +25,8 @@ export interface PagedChartProps {
   width: number;
   height: number;
   halfTurns?: boolean;
+  /** Page shown first when drawn (read once, on mount): 1-based, or the last page. */
+  startPage?: number | "last";
   layout?: Partial<LayoutOptions>;
   /** Accessible name of the page region. */
   label: string;
@@ -35,12 +37,26 @@ export interface PagedChartProps {
   marks?: ReadonlyMap<string, BarMark>;
 }
 
-export function PagedChart({ arrangement, text, width, height, halfTurns = false, layout: extra, label, controls, onView, className, marks }: PagedChartProps) {
+export function PagedChart({
+  arrangement,
+  text,
+  width,
+  height,
+  halfTurns = false,
+  startPage = 1,
+  layout: extra,
+  label,
+  controls,
+  onView,
+  className,
+  marks,
+}: PagedChartProps) {
   const host = useRef<HTMLDivElement>(null);
   const live = useRef<HTMLParagraphElement>(null);
   const flipper = useRef<PageFlipper | null>(null);
   const [error, setError] = useState<string | null>(null);
   const onViewRef = useRef(onView);
+  const startRef = useRef(startPage);
   const textKey = JSON.stringify(text);
   const marksKey = JSON.stringify(marks ? [...marks] : []);
   useEffect(() => {
@@ -64,7 +80,7 @@ export function PagedChart({ arrangement, text, width, height, halfTurns = false
     if (!el || !layout) return;
     let job: ReturnType<typeof drawSheets> | null = null;
     let gone = false;
-    const keepPage = flipper.current ? Number(el.dataset.page ?? 1) : 1;
+    const keepPage = flipper.current ? Number(el.dataset.page ?? 1) : startRef.current === "last" ? Infinity : startRef.current;
     el.dataset.drawn = "false";
     musicFontsReady()
       .then(() => {
@@ -80,7 +96,7 @@ export function PagedChart({ arrangement, text, width, height, halfTurns = false
           halfTurns,
           (view, index, views) => onViewRef.current?.(view, Number(el.dataset.page), pages, index === 0, index === views.length - 1),
         );
-        flipper.current.goToPage(Math.min(keepPage, pages));
+        flipper.current.goToPage(Math.max(1, Math.min(keepPage, pages)));
         el.dataset.drawn = "true";
         return job.done.then(() => {
           if (!gone) el.dataset.drawnAll = "true";
@@ -102,6 +118,7 @@ export function PagedChart({ arrangement, text, width, height, halfTurns = false
         data-testid="chart-page"
         data-page="1"
         data-pages={layout?.pages.length ?? 0}
+        data-systems={layout?.pages[0]?.systems.length ?? 0}
         role="region"
         aria-label={label}
       />

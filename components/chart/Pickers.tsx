@@ -3,6 +3,7 @@
 import { useId } from "react";
 import type { IntroKind, IntroResult } from "@/lib/chart/model";
 import { INSTRUMENT_IDS, INSTRUMENTS } from "@/lib/music/instruments";
+import { transposeChord, transposeChordToKey } from "@/lib/music";
 import { CONTROL } from "@/components/ui/Field";
 import { cx } from "@/components/ui/cx";
 
@@ -71,26 +72,45 @@ export const INTRO_NAMES: Record<IntroKind, string> = {
   composed: "The tune's own intro",
 };
 
-function preview(result: IntroResult): string {
-  const bars = result.bars.slice(0, 8).map((b) => (b.simile ? "%" : b.chords.map((c) => c.symbol).join(" ")));
-  return `| ${bars.join(" | ")} |${result.bars.length > 8 ? ` … ${result.bars.length} bars` : ""}`;
+/** Where the intro chords were worked out (the chart's key) and how this player reads them. */
+export interface PreviewPart {
+  chartKey: string;
+  /** Concert key in play tonight (a singer's key), or the chart's. */
+  concertKey: string;
+  instrument: string;
 }
 
-/** Each intro kind with what the analysis says about it for this tune, and its chords (concert). */
+/** A chord as the player reads it: moved to tonight's concert key, then to the part's key. */
+export function readChord(symbol: string, part: PreviewPart): string {
+  try {
+    const concert = part.concertKey === part.chartKey ? symbol : transposeChordToKey(symbol, part.chartKey, part.concertKey);
+    return transposeChord(concert, part.concertKey, part.instrument);
+  } catch {
+    return symbol; // a symbol the music core cannot read is shown as written
+  }
+}
+
+function previewBars(result: IntroResult, part: PreviewPart): string[] {
+  return result.bars.slice(0, 8).map((b) => (b.simile ? "%" : b.chords.map((c) => readChord(c.symbol, part)).join(" ")));
+}
+
+/** Each intro kind with what the analysis says about it for this tune, and its chords in the player's part. */
 export function IntroPicker({
   value,
   options,
   onChange,
+  part,
 }: {
   value: IntroKind | null;
   options: IntroResult[];
   onChange: (kind: IntroKind | null) => void;
+  part: PreviewPart;
 }) {
   const name = useId();
   return (
     <fieldset data-testid="intro-picker" className="flex min-w-0 flex-col gap-2">
       <legend className="mb-1 font-semibold">How it starts</legend>
-      <label className={cx("flex gap-3 rounded-md border p-3", value === null ? "border-brass bg-brass-light/40" : "border-paper-dim")}>
+      <label className={cx("flex min-w-0 gap-3 rounded-md border p-3", value === null ? "border-brass bg-brass-light/40" : "border-paper-dim")}>
         <input type="radio" name={name} value="" checked={value === null} onChange={() => onChange(null)} className="mt-1 size-5 shrink-0" />
         <span>
           <span className="font-semibold">Straight from the top</span>
@@ -102,16 +122,22 @@ export function IntroPicker({
           key={o.kind}
           data-kind={o.kind}
           data-fits={o.fits}
-          className={cx("flex gap-3 rounded-md border p-3", value === o.kind ? "border-brass bg-brass-light/40" : "border-paper-dim")}
+          className={cx("flex min-w-0 gap-3 rounded-md border p-3", value === o.kind ? "border-brass bg-brass-light/40" : "border-paper-dim")}
         >
           <input type="radio" name={name} value={o.kind} checked={value === o.kind} onChange={() => onChange(o.kind)} className="mt-1 size-5 shrink-0" />
-          <span className="min-w-0">
+          <span className="min-w-0 flex-1 [overflow-wrap:anywhere]">
             <span className="font-semibold">{INTRO_NAMES[o.kind]}</span>{" "}
             <span className={cx("text-sm font-semibold", o.fits ? "text-green-800" : "text-red-800")}>{o.fits ? "suits this tune" : "doesn't suit"}</span>
             <span className="block text-sm text-ink-muted">{o.advice}</span>
             {o.bars.length ? (
-              <span className="mt-1 block break-words font-mono text-sm">
-                {preview(o)}
+              // One bar a chip, wrapping onto new lines on a narrow phone (never a sideways scroll).
+              <span className="mt-1 flex flex-wrap gap-x-2 gap-y-1 font-mono text-sm" data-testid="intro-preview">
+                {previewBars(o, part).map((bar, i) => (
+                  <span key={i} className="[overflow-wrap:anywhere]">
+                    | {bar}
+                  </span>
+                ))}
+                <span>|{o.bars.length > 8 ? ` … ${o.bars.length} bars` : ""}</span>
               </span>
             ) : null}
           </span>

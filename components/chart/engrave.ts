@@ -124,6 +124,18 @@ function drawLabels(ctx: RenderContext, b: PlacedBar, system: System) {
 function drawHeader(ctx: RenderContext, page: Page, text: PageText) {
   if (!page.header) return;
   const y = page.header.y;
+  if (page.header.compact) {
+    // A desk read: title left, details and composer on one line under it, all smaller.
+    addText(ctx, text.title, 16, y + 20, { size: 22, bold: true, cls: "pp-title" });
+    if (text.details) addText(ctx, text.details, 16, y + 38, { size: 13, bold: true, cls: "pp-details" });
+    // The composer goes where it fits; on a very narrow page it is left to the chart's details below.
+    const besideTitle = textWidth(text.title, 22) + textWidth(text.composer, 13) + 48 <= page.width;
+    const besideDetails = textWidth(text.details, 13) + textWidth(text.composer, 13) + 48 <= page.width;
+    if (text.composer && (besideTitle || besideDetails)) {
+      addText(ctx, text.composer, page.width - 16, besideTitle ? y + 20 : y + 38, { size: 13, anchor: "end", italic: true, cls: "pp-composer" });
+    }
+    return;
+  }
   addText(ctx, text.title, page.width / 2, y + 30, { size: 28, anchor: "middle", bold: true, cls: "pp-title" });
   // Details left and composer right share a line when both fit; on a narrow page the composer goes
   // up under the title.

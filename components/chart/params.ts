@@ -1,4 +1,4 @@
-// The chart's reading choices as they sit in the address: ?instrument=bb&intro=vamp&introBars=4&key=F.
+// The chart's reading choices as they sit in the address: ?instrument=bb&intro=vamp&introBars=4&key=F&tempo=132.
 // Parsed with zod at this boundary; anything unreadable falls back to the default instead of failing.
 import { z } from "zod";
 import { IntroChoiceSchema, IntroKindSchema, type IntroChoice } from "@/lib/chart/model";
@@ -7,6 +7,8 @@ import { INSTRUMENT_IDS, type InstrumentId } from "@/lib/music/instruments";
 export interface ChartParams {
   instrument: InstrumentId | null;
   key: string | null;
+  /** Tonight's tempo (beats a minute) from a set list; null: the chart's own. */
+  tempo: number | null;
   /** undefined: the chart's own default (its composed intro, if any); null: no intro ("none"). */
   intro: IntroChoice | null | undefined;
 }
@@ -18,6 +20,7 @@ interface ReadableParams {
 const Instrument = z.enum(INSTRUMENT_IDS);
 const Key = z.string().regex(/^[A-G][b#]?m?$/);
 const Count = z.coerce.number().int().min(1).max(64);
+const Tempo = z.coerce.number().int().min(20).max(400);
 
 function optional<T>(schema: z.ZodType<T>, value: string | null): T | undefined {
   if (value === null || value === "") return undefined;
@@ -44,16 +47,24 @@ export function parseChartParams(params: ReadableParams): ChartParams {
   return {
     instrument: optional(Instrument, params.get("instrument")) ?? null,
     key: optional(Key, params.get("key")) ?? null,
+    tempo: optional(Tempo, params.get("tempo")) ?? null,
     intro,
   };
 }
 
 /** Query string for a set of choices (only what differs from the chart's own defaults). */
-export function chartQuery(p: { instrument?: string | null; key?: string | null; intro?: IntroChoice | null; list?: string | null }): string {
+export function chartQuery(p: {
+  instrument?: string | null;
+  key?: string | null;
+  tempo?: number | null;
+  intro?: IntroChoice | null;
+  list?: string | null;
+}): string {
   // `intro: null` is written as intro=none; `undefined` leaves the chart's default.
   const q = new URLSearchParams();
   if (p.instrument) q.set("instrument", p.instrument);
   if (p.key) q.set("key", p.key);
+  if (p.tempo) q.set("tempo", String(p.tempo));
   if (p.intro === null) q.set("intro", "none");
   if (p.intro) {
     q.set("intro", p.intro.kind);

@@ -11,6 +11,7 @@ import { chartQuery, parseChartParams } from "./params";
 export interface Choices {
   instrument: InstrumentId;
   key: string | null;
+  tempo: number | null;
   intro: IntroChoice | null | undefined;
   list: string | null;
   setInstrument: (id: string) => void;
@@ -33,18 +34,19 @@ export function useChoices(bandId: string | null, membershipInstrument: string |
 
   const replace = useCallback(
     (next: { instrument?: string | null; key?: string | null; intro?: IntroChoice | null }) => {
-      const q = chartQuery({ instrument, key: parsed.key, intro: parsed.intro, list, ...next });
+      const q = chartQuery({ instrument, key: parsed.key, tempo: parsed.tempo, intro: parsed.intro, list, ...next });
       router.replace(`${window.location.pathname || pathname}${q}`, { scroll: false });
     },
-    [instrument, parsed.key, parsed.intro, list, router, pathname],
+    [instrument, parsed.key, parsed.tempo, parsed.intro, list, router, pathname],
   );
 
   return {
     instrument,
     key: parsed.key,
+    tempo: parsed.tempo,
     intro: parsed.intro,
     list,
-    query: chartQuery({ instrument, key: parsed.key, intro: parsed.intro, list }),
+    query: chartQuery({ instrument, key: parsed.key, tempo: parsed.tempo, intro: parsed.intro, list }),
     setInstrument: (id) => {
       if (bandId) rememberInstrument(bandId, id);
       replace({ instrument: id });

@@ -8,6 +8,7 @@ import { Notice } from "@/components/ui/Notice";
 import { PageColumn } from "@/components/ui/Page";
 import { useBandCharts, useMembership, useMyBands } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
+import { DigestButton } from "./DigestButton";
 import { LibraryControls } from "./LibraryControls";
 import { LibraryTable } from "./LibraryTable";
 import { applyQuery, facets, readQuery, writeQuery, type LibraryQuery, type SortColumn } from "./query";
@@ -54,9 +55,12 @@ export function LibraryScreen() {
           </p>
         </div>
         {canEdit ? (
-          <LinkButton href={`/bands/${encodeURIComponent(bandId)}/charts/new`} data-testid="new-chart">
-            New chart
-          </LinkButton>
+          <div className="flex flex-wrap items-start gap-3">
+            <DigestButton bandId={bandId} />
+            <LinkButton href={`/bands/${encodeURIComponent(bandId)}/charts/new`} data-testid="new-chart">
+              New chart
+            </LinkButton>
+          </div>
         ) : null}
       </div>
 

@@ -55,7 +55,7 @@ export function GigScreen() {
   const editable = canEditSetlists(membership);
   const here = `${base}/${encodeURIComponent(setlist.id)}`;
   const openHref = (e: SetlistEntry) =>
-    `/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(e.chartId)}${chartQuery({ instrument: part, key: e.key, intro: e.intro ?? undefined, list: setlist.id })}`;
+    `/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(e.chartId)}${chartQuery({ instrument: part, key: e.key, tempo: e.tempo, intro: e.intro ?? undefined, list: setlist.id })}`;
 
   async function duplicate() {
     const id = newId();

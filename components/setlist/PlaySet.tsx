@@ -56,6 +56,8 @@ export function PlaySet() {
             intro: e.intro ?? undefined,
             label: tuneHeading(e, c.title, c.body.key, c.body.tempo),
             next: nextTitle ? `Next: ${nextTitle}` : undefined,
+            nextTitle,
+            introText: introInWords(e.intro),
             marks: marks.get(e.chartId),
           },
         ];

@@ -67,3 +67,53 @@ function formatWhen(iso: string): string {
   const d = new Date(iso);
   return `${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;
 }
+
+export interface DigestChart {
+  title: string;
+  revision: number;
+  /** Everyone who published a revision since the last notice, in order. */
+  authors: string[];
+  /** Each revision's message since the last notice, oldest first. */
+  messages: string[];
+  removed: boolean;
+  link: string;
+}
+
+/** The "charts updated" notice: every chart published since the band's last one, each with a link. */
+export function chartsUpdatedMail(p: { to: string; bandName: string; senderName: string; charts: DigestChart[]; libraryLink: string }): MailMessage {
+  const count = `${p.charts.length} ${p.charts.length === 1 ? "chart" : "charts"}`;
+  const intro = `${p.senderName} sent this notice: ${count} in the ${p.bandName} book changed since the last one. Your devices pick up the new versions at their next sync; open the app once while you have signal before the gig.`;
+  const footer = "You get this notice because you are a member of the band. Only the leader or an arranger can send it.";
+  const what = (c: DigestChart) => (c.removed ? `removed from the book (revision ${c.revision})` : `revision ${c.revision}`);
+  const notes = (c: DigestChart) => c.messages.filter((m) => m.trim() !== "");
+  const textItems = p.charts.map((c) =>
+    [
+      `* ${c.title} — ${what(c)}, by ${c.authors.join(", ")}`,
+      ...notes(c).map((m) => `  “${m}”`),
+      `  ${c.link}`,
+    ].join("\n"),
+  );
+  const htmlItems = p.charts
+    .map(
+      (c) => `<li style="margin:0 0 16px">
+<a href="${escapeHtml(c.link)}" style="color:#a8620f;font-weight:600">${escapeHtml(c.title)}</a>
+<span style="color:#5b6170"> — ${escapeHtml(what(c))}, by ${escapeHtml(c.authors.join(", "))}</span>
+${notes(c).map((m) => `<br><span>“${escapeHtml(m)}”</span>`).join("")}
+</li>`,
+    )
+    .join("");
+  const html = `<!doctype html><html lang="en"><body style="margin:0;background:#fbfaf7;font-family:system-ui,sans-serif;color:#15171c">
+<div style="max-width:520px;margin:0 auto;padding:32px 24px">
+<h1 style="font-size:20px;margin:0 0 20px">${escapeHtml(`Charts updated in ${p.bandName}`)}</h1>
+<p style="margin:0 0 16px">${escapeHtml(intro)}</p>
+<ul style="margin:0 0 16px;padding-left:20px">${htmlItems}</ul>
+<p style="margin:24px 0"><a href="${escapeHtml(p.libraryLink)}" style="background:#a8620f;color:#ffffff;padding:12px 20px;border-radius:6px;text-decoration:none;font-weight:600">Open the library</a></p>
+<p style="margin:0;font-size:13px;color:#5b6170">${escapeHtml(footer)}</p>
+</div></body></html>`;
+  return {
+    to: p.to,
+    subject: `${p.bandName}: ${count} updated`,
+    text: `${intro}\n\n${textItems.join("\n\n")}\n\nThe library:\n${p.libraryLink}\n\n${footer}\n`,
+    html,
+  };
+}

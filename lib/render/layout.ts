@@ -7,11 +7,21 @@ import { keyAccidentalCount } from "./keys";
 import { BAR_PAD_END, BAR_PAD_START, MARGIN, STAFF_HEIGHT, openingWidth } from "./metrics";
 import { clefFor } from "./part-label";
 
-const TOP_STRIP = 24; // the part label in the corner
-const HEADER_HEIGHT = 72;
-const BOTTOM_MARGIN = 10;
-const LABEL_ROW = 24;
-const BELOW_STAFF = 18;
+interface Spacing {
+  /** The part label in the corner. */
+  topStrip: number;
+  header: number;
+  bottom: number;
+  labelRow: number;
+  belowStaff: number;
+  /** Chord-symbol row height per unit of font size. */
+  chordRow: number;
+  /** Most spare room added between systems, as a share of a system's slot. */
+  spread: number;
+}
+
+const ROOMY: Spacing = { topStrip: 24, header: 72, bottom: 10, labelRow: 24, belowStaff: 18, chordRow: 1.35, spread: 0.25 };
+const COMPACT: Spacing = { topStrip: 20, header: 46, bottom: 6, labelRow: 18, belowStaff: 8, chordRow: 1.2, spread: 0.1 };
 
 export function defaultZoom(width: number): number {
   return width >= 1000 ? 1.3 : width >= 700 ? 1.15 : 1;
@@ -101,15 +111,17 @@ function placeLine(line: Line, lineIndex: number, ctx: LineContext): PlacedBar[]
   });
 }
 
-export function systemHeight(fontSize: number): number {
-  return LABEL_ROW + Math.round(fontSize * 1.35) + STAFF_HEIGHT + BELOW_STAFF;
+export function systemHeight(fontSize: number, compact = false): number {
+  const sp = compact ? COMPACT : ROOMY;
+  return sp.labelRow + Math.round(fontSize * sp.chordRow) + STAFF_HEIGHT + sp.belowStaff;
 }
 
 export function layoutChart(arrangement: Arrangement, options: LayoutOptions): ChartLayout {
   const zoom = options.zoom ?? defaultZoom(options.width);
   const width = Math.max(200, options.width / zoom);
   const height = Math.max(200, options.height / zoom);
-  const fontSize = options.chordFontSize ?? (width < 480 ? 21 : 24);
+  const compact = options.compact ?? false;
+  const fontSize = options.chordFontSize ?? (width < 480 ? 21 : compact ? 22 : 24);
   const barsPerLine = Math.max(1, Math.floor(options.barsPerLine ?? defaultBarsPerLine(width)));
   const clef: Clef = options.clef ?? clefFor(arrangement.instrument);
   const keyAcc = options.keyAccidentals ?? keyAccidentalCount(arrangement.writtenKey);
@@ -125,7 +137,7 @@ export function layoutChart(arrangement: Arrangement, options: LayoutOptions): C
     firstIntroIndex: arrangement.bars.find((b) => b.part === "intro")?.index ?? null,
   };
   const lines = breakLines(arrangement.bars, ctx).map((line, i) => placeLine(line, i, ctx));
-  const pages = paginate(lines, { width, height, zoom, fontSize, header: options.header ?? true });
+  const pages = paginate(lines, { width, height, zoom, fontSize, header: options.header ?? true, compact });
   return { pages, meter: arrangement.meter, clef, chordFontSize: fontSize, barsPerLine };
 }
 
@@ -135,20 +147,22 @@ interface PageGeometry {
   zoom: number;
   fontSize: number;
   header: boolean;
+  compact: boolean;
 }
 
 function paginate(lines: PlacedBar[][], g: PageGeometry): Page[] {
-  const slot = systemHeight(g.fontSize);
-  const staffOffset = LABEL_ROW + Math.round(g.fontSize * 1.35);
+  const sp = g.compact ? COMPACT : ROOMY;
+  const slot = systemHeight(g.fontSize, g.compact);
+  const staffOffset = sp.labelRow + Math.round(g.fontSize * sp.chordRow);
   const pages: Page[] = [];
   let next = 0;
   do {
-    const header = g.header && pages.length === 0 ? { y: TOP_STRIP, height: HEADER_HEIGHT } : null;
-    const top = TOP_STRIP + (header ? HEADER_HEIGHT : 0);
-    const room = g.height - top - BOTTOM_MARGIN;
+    const header = g.header && pages.length === 0 ? { y: sp.topStrip, height: sp.header, ...(g.compact ? { compact: true } : {}) } : null;
+    const top = sp.topStrip + (header ? sp.header : 0);
+    const room = g.height - top - sp.bottom;
     const rows = Math.max(1, Math.floor(room / slot));
     // Spread spare room between systems on every page alike, so turns don't shift the lines.
-    const pitch = slot + Math.min(Math.max(0, (room - rows * slot) / rows), slot * 0.25);
+    const pitch = slot + Math.min(Math.max(0, (room - rows * slot) / rows), slot * sp.spread);
     const systems: System[] = lines.slice(next, next + rows).map((bars, i) => {
       const y = top + i * pitch;
       const staffY = y + staffOffset;

@@ -21,6 +21,11 @@ export interface LayoutOptions {
   header?: boolean;
   /** The chart's title block text; lines shown on page 1. */
   title?: string;
+  /**
+   * Tighter spacing for reading at a desk (the chart page): a slimmer title block and less air
+   * between systems, so a laptop screen holds more lines. The bandstand keeps the roomy default.
+   */
+  compact?: boolean;
 }
 
 export interface ChordBox {
@@ -65,6 +70,8 @@ export interface System {
 export interface PageHeader {
   y: number;
   height: number;
+  /** Slim title block (one smaller title line and the details under it). */
+  compact?: boolean;
 }
 
 export interface Page {

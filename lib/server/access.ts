@@ -3,6 +3,7 @@ import "server-only";
 // Outsiders (and subs whose access has ended) get 404 so the band's existence is not revealed.
 import type { Kysely } from "kysely";
 import type { Database, Membership } from "@/db/schema";
+import { membershipRow } from "@/db/sync-queries";
 import { AppError } from "./errors";
 import { CAN, type Permission, describeRoles } from "./roles";
 
@@ -13,12 +14,8 @@ export interface Actor {
 }
 
 export async function findMembership(db: Kysely<Database>, userId: string, bandId: string, now = new Date()): Promise<Membership | null> {
-  const m = await db
-    .selectFrom("memberships")
-    .selectAll()
-    .where("band_id", "=", bandId)
-    .where("user_id", "=", userId)
-    .executeTakeFirst();
+  // Asked on every request, so a prepared statement rather than a built query.
+  const [m] = await membershipRow(db, bandId, userId);
   if (!m) return null;
   if (m.expires_at && m.expires_at <= now.toISOString()) return null;
   return m;

@@ -5,6 +5,7 @@ import "server-only";
 import { createHash } from "node:crypto";
 import type { Kysely } from "kysely";
 import type { Database, Membership } from "@/db/schema";
+import { bandNameRow, feedPageRows, feedRemainingCount, rosterRows } from "@/db/sync-queries";
 import type { PullQuery } from "@/lib/offline/protocol";
 import { requireMember, type Actor } from "./access";
 import { AppError } from "./errors";
@@ -38,66 +39,8 @@ function scopeOf(m: Membership, visible: Visible | null): string {
   return `sub:${h.digest("base64url").slice(0, 22)}`;
 }
 
-async function feedPage(db: Kysely<Database>, bandId: string, userId: string, since: number, limit: number) {
-  return db
-    .selectFrom("changes as c")
-    .select(["c.seq", "c.entity", "c.entity_id", "c.op", "c.user_id"])
-    .where("c.band_id", "=", bandId)
-    .where("c.seq", ">", since)
-    .where((eb) => eb.or([eb("c.user_id", "is", null), eb("c.user_id", "=", userId)]))
-    .where((eb) =>
-      eb.not(
-        eb.exists(
-          eb
-            .selectFrom("changes as d")
-            .select("d.seq")
-            .whereRef("d.entity", "=", "c.entity")
-            .whereRef("d.entity_id", "=", "c.entity_id")
-            .whereRef("d.seq", ">", "c.seq")
-            .whereRef("d.band_id", "=", "c.band_id")
-            .where((w) => w.or([w("d.user_id", "is", null), w("d.user_id", "=", userId)])),
-        ),
-      ),
-    )
-    .orderBy("c.seq")
-    .limit(limit + 1)
-    .execute();
-}
-
-async function countRemaining(db: Kysely<Database>, bandId: string, userId: string, since: number): Promise<number> {
-  const r = await db
-    .selectFrom("changes as c")
-    .select((eb) => eb.fn.count<number>("c.seq").as("n"))
-    .where("c.band_id", "=", bandId)
-    .where("c.seq", ">", since)
-    .where("c.entity", "in", [...PULL_ENTITIES])
-    .where((eb) => eb.or([eb("c.user_id", "is", null), eb("c.user_id", "=", userId)]))
-    .where((eb) =>
-      eb.not(
-        eb.exists(
-          eb
-            .selectFrom("changes as d")
-            .select("d.seq")
-            .whereRef("d.entity", "=", "c.entity")
-            .whereRef("d.entity_id", "=", "c.entity_id")
-            .whereRef("d.seq", ">", "c.seq")
-            .whereRef("d.band_id", "=", "c.band_id")
-            .where((w) => w.or([w("d.user_id", "is", null), w("d.user_id", "=", userId)])),
-        ),
-      ),
-    )
-    .executeTakeFirst();
-  return Number(r?.n ?? 0);
-}
-
 async function rosterJson(db: Kysely<Database>, bandId: string): Promise<string> {
-  const rows = await db
-    .selectFrom("memberships as m")
-    .innerJoin("users as u", "u.id", "m.user_id")
-    .select(["m.user_id", "u.name", "u.email", "m.role", "m.instrument", "m.expires_at"])
-    .where("m.band_id", "=", bandId)
-    .orderBy("u.name")
-    .execute();
+  const rows = await rosterRows(db, bandId);
   return JSON.stringify(
     rows.map((r) => ({ userId: r.user_id, name: r.name, email: r.email, role: r.role, instrument: r.instrument, expiresAt: r.expires_at })),
   );
@@ -132,14 +75,14 @@ function upsertJson(entity: string, id: string, data: string): string {
 export async function pullChanges(db: Kysely<Database>, actor: Actor | null, bandId: string, q: PullQuery, now = new Date()): Promise<string> {
   const m = await requireMember(db, actor, bandId, "belong");
   const userId = m.user_id;
-  const band = await db.selectFrom("bands").select(["id", "name"]).where("id", "=", bandId).executeTakeFirst();
+  const [band] = await bandNameRow(db, bandId);
   if (!band) throw new AppError("not_found", "That band was not found.");
   const visible = m.role === "sub" ? await visibleToSub(db, bandId, userId, now) : null;
   const scope = scopeOf(m, visible);
   const rescoped = q.scope !== undefined && q.scope !== scope;
   const since = rescoped ? 0 : q.since;
 
-  const rows = await feedPage(db, bandId, userId, since, q.limit);
+  const rows = await feedPageRows(db, bandId, userId, since, q.limit + 1);
   const more = rows.length > q.limit;
   const page = more ? rows.slice(0, q.limit) : rows;
   const seq = page.length > 0 ? page[page.length - 1]!.seq : since;
@@ -189,7 +132,7 @@ export async function pullChanges(db: Kysely<Database>, actor: Actor | null, ban
     }
   }
 
-  const total = q.count === "1" ? (visible ? visible.charts.size + visible.setlists.size : await countRemaining(db, bandId, userId, since)) : undefined;
+  const total = q.count === "1" ? (visible ? visible.charts.size + visible.setlists.size : await feedRemainingCount(db, bandId, userId, since, [...PULL_ENTITIES])) : undefined;
   const withRoster = m.role === "leader" && (since === 0 || membershipChanged);
   const membership = { bandId, role: m.role, instrument: m.instrument, expiresAt: m.expires_at };
   let out = `{"seq":${seq},"more":${more},"scope":${JSON.stringify(scope)}`;

@@ -3,6 +3,7 @@ import "server-only";
 // Stored JSON columns are spliced in unparsed; only short scalar fields go through JSON.stringify.
 import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
+import { feedChartRows, feedRevisionRows } from "@/db/sync-queries";
 
 /** How many of a chart's latest revisions travel with it (the history list on the device). */
 export const HISTORY_LIMIT = 10;
@@ -37,39 +38,12 @@ const REVISION_COLUMNS = [
 ] as const;
 
 async function chartRows(db: Kysely<Database>, bandId: string, ids: string[], range?: FeedRange) {
-  if (range) {
-    return db
-      .selectFrom("changes as ch")
-      .innerJoin("charts as c", "c.id", "ch.entity_id")
-      .leftJoin("users as u", "u.id", "c.updated_by")
-      .select(CHART_COLUMNS)
-      .where("ch.band_id", "=", bandId)
-      .where("ch.entity", "=", "chart")
-      .where("ch.seq", ">", range.since)
-      .where("ch.seq", "<=", range.until)
-      .where("c.deleted_at", "is", null)
-      .execute();
-  }
+  if (range) return feedChartRows(db, bandId, range.since, range.until);
   return db.selectFrom("charts as c").leftJoin("users as u", "u.id", "c.updated_by").select(CHART_COLUMNS).where("c.id", "in", ids).where("c.deleted_at", "is", null).execute();
 }
 
 async function revisionRows(db: Kysely<Database>, ids: string[], range?: FeedRange, bandId?: string) {
-  if (range && bandId) {
-    return db
-      .selectFrom("changes as ch")
-      .innerJoin("charts as c", "c.id", "ch.entity_id")
-      .innerJoin("chart_revisions as r", "r.chart_id", "c.id")
-      .leftJoin("users as u", "u.id", "r.author_id")
-      .select(REVISION_COLUMNS)
-      .where("ch.band_id", "=", bandId)
-      .where("ch.entity", "=", "chart")
-      .where("ch.seq", ">", range.since)
-      .where("ch.seq", "<=", range.until)
-      .where((eb) => eb("r.revision", ">", eb(eb.ref("c.revision"), "-", HISTORY_LIMIT)))
-      .orderBy("r.chart_id")
-      .orderBy("r.revision", "desc")
-      .execute();
-  }
+  if (range && bandId) return feedRevisionRows(db, bandId, range.since, range.until, HISTORY_LIMIT);
   return db
     .selectFrom("chart_revisions as r")
     .innerJoin("charts as c", "c.id", "r.chart_id")

@@ -131,6 +131,43 @@ test.describe("bandstand view", () => {
     await expect(page.getByTestId("tune-label")).toContainText("Lanternfish");
   });
 
+  test("shows the tune's key, tempo and intro at the top, and backs into the last page of the tune before", async ({ page }) => {
+    await openBandstand(page, `?instrument=bb&list=${CHART_ID},${SECOND_ID}`);
+    const head = page.getByTestId("tune-head");
+    await expect(head.getByTestId("head-title")).toHaveText("Lanternfish");
+    // A B♭ part reads a major 2nd above concert (MusicXML <transpose> −1/−2): E♭ concert → F written.
+    await expect(head.getByTestId("head-key")).toHaveText("Key E♭ concert · F written");
+    await expect(head.getByTestId("head-tempo")).toHaveText("♩ = 152");
+    await expect(head.getByTestId("head-intro")).toContainText("Intro:");
+    await expect(head.getByTestId("head-next")).toHaveText("next: Tidewater Waltz");
+    const box = await head.boundingBox();
+    expect(box!.y).toBeLessThanOrEqual(1);
+    expect(box!.x + box!.width).toBeLessThanOrEqual(390);
+
+    const pages = await pageCount(page);
+    for (let p = 2; p <= pages; p++) {
+      await page.keyboard.press("PageDown");
+      await expect(shown(page)).toHaveAttribute("data-page", String(p));
+    }
+    await page.keyboard.press("PageDown");
+    await expect(head.getByTestId("head-title")).toHaveText("Tidewater Waltz");
+    await expect(page.locator('[data-testid="chart-page"][data-drawn-all="true"]')).toBeAttached({ timeout: 30_000 });
+    await expect(shown(page)).toHaveAttribute("data-page", "1");
+    // The same back pedal, and a tap on the left, each go back across the tune boundary to its last page.
+    await page.keyboard.press("PageUp");
+    await expect(head.getByTestId("head-title")).toHaveText("Lanternfish");
+    await expect(page.locator('[data-testid="chart-page"][data-drawn-all="true"]')).toBeAttached({ timeout: 30_000 });
+    await expect(shown(page)).toHaveAttribute("data-page", String(pages));
+    await expect(page.getByTestId("page-counter")).toHaveText(`${pages} / ${pages}`);
+    await page.keyboard.press("PageDown");
+    await expect(head.getByTestId("head-title")).toHaveText("Tidewater Waltz");
+    await expect(page.locator('[data-testid="chart-page"][data-drawn-all="true"]')).toBeAttached({ timeout: 30_000 });
+    await page.getByTestId("tap-back").click();
+    await expect(head.getByTestId("head-title")).toHaveText("Lanternfish");
+    await expect(page.locator('[data-testid="chart-page"][data-drawn-all="true"]')).toBeAttached({ timeout: 30_000 });
+    await expect(shown(page)).toHaveAttribute("data-page", String(pages));
+  });
+
   test("the bandstand view has no serious accessibility problems", async ({ page }) => {
     await openBandstand(page);
     await expectNoSeriousA11yIssues(page, "the bandstand view");

@@ -114,6 +114,66 @@ test.describe("chart page", () => {
     await page.emulateMedia({ media: "screen" });
   });
 
+  test("a laptop screen (1280×720) shows at least four systems on the first page", async ({ page }) => {
+    await page.setViewportSize({ width: 1280, height: 720 });
+    await openChart(page, "?instrument=bb");
+    const chartPage = page.locator('[data-testid="chart-page"]');
+    expect(Number(await chartPage.getAttribute("data-systems"))).toBeGreaterThanOrEqual(4);
+    // Counted on the drawing too: distinct staff lines of bars, all inside the page and the window.
+    const tops = await chartPage.locator('[data-sheet="1"] .pp-bar').evaluateAll((els) =>
+      els.map((e) => {
+        const r = e.getBoundingClientRect();
+        return { top: Math.round(r.top / 10), bottom: r.bottom };
+      }),
+    );
+    expect(new Set(tops.map((t) => t.top)).size).toBeGreaterThanOrEqual(4);
+    const frame = (await chartPage.boundingBox())!;
+    for (const t of tops) expect(t.bottom).toBeLessThanOrEqual(Math.min(720, frame.y + frame.height) + 1);
+  });
+
+  test("a set list's tempo replaces the chart's in the title block", async ({ page }) => {
+    await openChart(page, "?instrument=bb&tempo=132");
+    const details = page.locator('[data-testid="chart-page"] [data-sheet="1"] .pp-details');
+    await expect(details).toContainText("♩ = 132");
+    // Lanternfish is written at 152 (demo chart); an unreadable tempo falls back to it.
+    await expect(details).not.toContainText("♩ = 152");
+    await openChart(page, "?instrument=bb&tempo=fast");
+    await expect(page.locator('[data-testid="chart-page"] [data-sheet="1"] .pp-details')).toContainText("♩ = 152");
+  });
+
+  test("the intro previews show the chords as the part reads them", async ({ page }) => {
+    const chart = parseChartText(LANTERNFISH.text);
+    for (const instrument of ["bb", "eb", "concert"] as const) {
+      await openChart(page, `?instrument=${instrument}`);
+      for (const kind of ["dominant-pedal", "two-five"] as const) {
+        // The arrangement's intro bars are already in the part's written key (lib/chart arrange).
+        const bars = arrange(chart, { instrument, intro: { kind } }).bars.filter((b) => b.part === "intro");
+        const firstChords = bars.find((b) => !b.simile && b.chords.length)!.chords.map((c) => c.symbol);
+        const preview = page.getByTestId("intro-picker").locator(`[data-kind="${kind}"] [data-testid="intro-preview"]`);
+        for (const symbol of firstChords) await expect(preview).toContainText(symbol);
+      }
+    }
+    // Concert Bb7sus4 (the dominant pedal in E♭) is read as C7sus4 on a B♭ part.
+    await openChart(page, "?instrument=bb");
+    const pedal = page.getByTestId("intro-picker").locator('[data-kind="dominant-pedal"] [data-testid="intro-preview"]');
+    await expect(pedal).not.toContainText("Bb7sus4");
+  });
+
+  test("on a 390px phone the intro options wrap inside the screen", async ({ page }) => {
+    await page.setViewportSize({ width: 390, height: 844 });
+    await openChart(page, "?instrument=eb");
+    const options = page.getByTestId("intro-picker").locator("label");
+    const count = await options.count();
+    expect(count).toBe(INTRO_KINDS.length + 1);
+    for (let i = 0; i < count; i++) {
+      const box = (await options.nth(i).boundingBox())!;
+      expect(box.x).toBeGreaterThanOrEqual(0);
+      expect(box.x + box.width, `intro option ${i} fits the phone`).toBeLessThanOrEqual(390);
+    }
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await expectNoSeriousA11yIssues(page, "the chart page on a phone");
+  });
+
   test("the chart page has no serious accessibility problems", async ({ page }) => {
     await openChart(page, "?instrument=bb");
     await expectNoSeriousA11yIssues(page, "the chart page");

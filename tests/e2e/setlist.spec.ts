@@ -54,6 +54,11 @@ test.describe("tonight's gig", () => {
     await page.getByTestId("add-tune-2").click();
     await arrange(page, 1, "F", "dominant-pedal", "4");
     await arrange(page, 2, "A", "turnaround");
+    // Tonight's tempo for the first tune, carried to its chart page and the bandstand header.
+    const first = page.getByTestId("set-1").getByTestId("set-tune").first();
+    await first.getByTestId("arrange-tune").click();
+    await first.getByTestId("tune-tempo").fill("144");
+    await first.getByTestId("arrange-tune").click();
     await page.getByTestId("save-setlist").click();
     await expect(page.getByTestId("save-state")).toHaveText("Saved.");
     await expect(page.getByTestId("set-1").getByTestId("set-tune")).toContainText("Key F");
@@ -64,6 +69,15 @@ test.describe("tonight's gig", () => {
     await expect(page.getByTestId("share-result")).toContainText(`Sent to ${sub.email}`);
     await expect(page.getByTestId("share-row")).toContainText("not opened yet");
     expect(await waitForLink(request, sub.email, /http:\/\/[^\s"<]+\/share\/[A-Za-z0-9_-]+/)).toContain("/share/");
+
+    // Opened on its own chart page, the tune keeps tonight's tempo (not the chart's 152) in the title block.
+    await page.getByTestId("set-1").getByTestId("open-tune").first().click();
+    await expect(page).toHaveURL(/[?&]tempo=144(&|$)/);
+    await expect(page).toHaveURL(/[?&]key=F(&|$)/);
+    await drawn(page);
+    const details = shown(page).locator('[data-sheet="1"] .pp-details');
+    await expect(details).toContainText("♩ = 144");
+    await expect(details).not.toContainText("♩ = 152");
   });
 
   test("the sub signs up from the link and plays the set offline as an E♭ part", async ({ browser, request }) => {
@@ -97,6 +111,22 @@ test.describe("tonight's gig", () => {
     await expect(label).toContainText("Key F");
     await expect(label).toContainText("Intro: dominant pedal, 4 bars");
     await expect(page.getByTestId("next-up")).toContainText("Next: Tidewater Waltz");
+    // The same plan at the top of the screen, inside a 390px phone's width.
+    // An E♭ part reads a major 6th above concert (MusicXML <transpose> −5/−9): F concert → D written.
+    const head = page.getByTestId("tune-head");
+    await expect(head.getByTestId("head-title")).toHaveText("Lanternfish");
+    await expect(head.getByTestId("head-key")).toHaveText("Key F concert · D written");
+    await expect(head.getByTestId("head-tempo")).toHaveText("♩ = 144");
+    await expect(head.getByTestId("head-intro")).toHaveText("Intro: dominant pedal, 4 bars");
+    await expect(head.getByTestId("head-next")).toHaveText("next: Tidewater Waltz");
+    const headBox = await head.boundingBox();
+    const chartBox = await shown(page).boundingBox();
+    expect(headBox!.y).toBeLessThanOrEqual(1);
+    expect(chartBox!.y).toBeGreaterThanOrEqual(headBox!.y + headBox!.height - 1);
+    for (const part of ["head-title", "head-key", "head-tempo", "head-intro", "head-next"]) {
+      const box = await head.getByTestId(part).boundingBox();
+      expect(box!.x + box!.width, `${part} fits the phone`).toBeLessThanOrEqual(390);
+    }
     await expect(shown(page).locator(".pp-part").first()).toContainText("E♭");
 
     const pages = Number(await shown(page).getAttribute("data-pages"));
@@ -110,6 +140,15 @@ test.describe("tonight's gig", () => {
     await expect(label).toContainText("Intro: I-vi-ii-V turnaround");
     await drawn(page);
     await expect(shown(page)).toHaveAttribute("data-page", "1");
+    await expect(head.getByTestId("head-title")).toHaveText("Tidewater Waltz");
+    await expect(head.getByTestId("head-key")).toContainText("Key A concert");
+    await expect(head.getByTestId("head-next")).toHaveCount(0);
+    // Back from the first page of a tune is the last page of the one before, as the band played it.
+    await page.keyboard.press("PageUp");
+    await expect(label).toContainText("Lanternfish");
+    await drawn(page);
+    await expect(shown(page)).toHaveAttribute("data-page", String(pages));
+    await expect(head.getByTestId("head-title")).toHaveText("Lanternfish");
     await page.context().close();
   });
 

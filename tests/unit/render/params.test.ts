@@ -9,12 +9,17 @@ describe("chart address parameters", () => {
     expect(read("instrument=bb&key=F&intro=vamp&introBars=4&introRepeats=2&vamp=Cm7+F7(b9,%2311)")).toEqual({
       instrument: "bb",
       key: "F",
+      tempo: null,
       intro: { kind: "vamp", bars: 4, repeats: 2, vamp: ["Cm7", "F7(b9,#11)"] },
     });
   });
 
   it("falls back to the defaults for anything it cannot read", () => {
-    expect(read("instrument=kazoo&key=H&intro=fanfare")).toEqual({ instrument: null, key: null, intro: undefined });
+    expect(read("instrument=kazoo&key=H&intro=fanfare&tempo=fast")).toEqual({ instrument: null, key: null, tempo: null, intro: undefined });
+    // A tempo outside what a band plays (or not a whole number) is not a tempo.
+    expect(read("tempo=0").tempo).toBeNull();
+    expect(read("tempo=9000").tempo).toBeNull();
+    expect(read("tempo=120.5").tempo).toBeNull();
   });
 
   it("tells 'no intro' apart from 'the chart's own default'", () => {
@@ -24,7 +29,14 @@ describe("chart address parameters", () => {
 
   it("writes back what it reads", () => {
     const q = chartQuery({ instrument: "eb", key: "Db", intro: { kind: "turnaround", variant: "iii-VI-ii-V", tritoneSub: true } });
-    expect(read(q.slice(1))).toEqual({ instrument: "eb", key: "Db", intro: { kind: "turnaround", variant: "iii-VI-ii-V", tritoneSub: true } });
+    expect(read(q.slice(1))).toEqual({ instrument: "eb", key: "Db", tempo: null, intro: { kind: "turnaround", variant: "iii-VI-ii-V", tritoneSub: true } });
     expect(chartQuery({ intro: null })).toBe("?intro=none");
+  });
+
+  it("carries a set list's tempo next to the key and the intro", () => {
+    const q = chartQuery({ instrument: "bb", key: "F", tempo: 132, intro: { kind: "vamp" } });
+    expect(new URLSearchParams(q.slice(1)).get("tempo")).toBe("132");
+    expect(read(q.slice(1))).toEqual({ instrument: "bb", key: "F", tempo: 132, intro: { kind: "vamp" } });
+    expect(chartQuery({ tempo: null })).toBe("");
   });
 });
