@@ -10,15 +10,25 @@ import type { Database, Membership } from "./schema";
 
 const prepared = new WeakMap<BetterSqlite3.Database, Map<string, BetterSqlite3.Statement>>();
 
-async function all<T>(db: Kysely<Database>, sql: string, params: readonly unknown[]): Promise<T[]> {
+/**
+ * Runs `sql` as a prepared statement. With `shape`, rows come from better-sqlite3 as plain arrays
+ * and are made into objects here: for wide rows that is much cheaper than its own object building.
+ */
+async function all<T>(db: Kysely<Database>, sql: string, params: readonly unknown[], shape?: (row: unknown[]) => T): Promise<T[]> {
   const handle = sqliteHandle(db);
-  if (!handle) return (await db.executeQuery<T>(CompiledQuery.raw(sql, [...params]))).rows as T[];
+  if (!handle) {
+    const rows = (await db.executeQuery<T>(CompiledQuery.raw(sql, [...params]))).rows as T[];
+    return shape ? rows.map((r) => shape(Object.values(r as object))) : rows;
+  }
   let cache = prepared.get(handle);
   if (!cache) prepared.set(handle, (cache = new Map()));
   let stmt = cache.get(sql);
-  if (!stmt) cache.set(sql, (stmt = handle.prepare(sql)));
+  if (!stmt) cache.set(sql, (stmt = handle.prepare(sql).raw(shape !== undefined)));
   const ready = stmt;
-  return db.connection().execute(async () => ready.all(...params) as T[]);
+  return db.connection().execute(async () => {
+    const rows = ready.all(...params);
+    return shape ? (rows as unknown[][]).map(shape) : (rows as T[]);
+  });
 }
 
 export function membershipRow(db: Kysely<Database>, bandId: string, userId: string): Promise<Membership[]> {
@@ -50,6 +60,7 @@ export function feedPageRows(db: Kysely<Database>, bandId: string, userId: strin
      where c.band_id = ? and c.seq > ? and (c.user_id is null or c.user_id = ?) and ${LATEST}
      order by c.seq limit ?`,
     [bandId, since, userId, userId, limit],
+    (r) => ({ seq: r[0] as number, entity: r[1] as string, entity_id: r[2] as string, op: r[3] as string, user_id: r[4] as string | null }),
   );
 }
 
@@ -92,6 +103,12 @@ export function feedChartRows(db: Kysely<Database>, bandId: string, since: numbe
      from changes ch inner join charts c on c.id = ch.entity_id left join users u on u.id = c.updated_by
      where ch.band_id = ? and ch.entity = 'chart' and ch.seq > ? and ch.seq <= ? and c.deleted_at is null`,
     [bandId, since, until],
+    (r) => ({
+      id: r[0] as string, band_id: r[1] as string, title: r[2] as string, composer: r[3] as string, concert_key: r[4] as string,
+      meter: r[5] as string, tempo: r[6] as number | null, feel: r[7] as string, body_json: r[8] as string, source_text: r[9] as string,
+      revision: r[10] as number, updated_at: r[11] as string, updated_by: r[12] as string, deleted_at: r[13] as string | null,
+      updated_by_name: r[14] as string | null,
+    }),
   );
 }
 
@@ -120,6 +137,10 @@ export function feedRevisionRows(db: Kysely<Database>, bandId: string, since: nu
      where ch.band_id = ? and ch.entity = 'chart' and ch.seq > ? and ch.seq <= ? and r.revision > c.revision - ?
      order by r.chart_id, r.revision desc`,
     [bandId, since, until, keep],
+    (r) => ({
+      chart_id: r[0] as string, revision: r[1] as number, title: r[2] as string, message: r[3] as string, created_at: r[4] as string,
+      source_text: r[5] as string | null, meta_json: r[6] as string | null, current: r[7] as number, author_name: r[8] as string | null,
+    }),
   );
 }
 

@@ -37,9 +37,12 @@ export interface BandstandProps {
   tunes: BandstandTune[];
   instrument: string;
   start?: number;
+  /** Page of the start tune to open at: its first, or its last (coming back from the tune after it). */
+  startAt?: "first" | "last";
   /** Where "Close" goes. */
   exitHref: string;
-  onTuneChange?: (index: number) => void;
+  /** `at`: which page of the new tune opens (a parent that remounts this view passes it back as startAt). */
+  onTuneChange?: (index: number, at: "first" | "last") => void;
 }
 
 const BAR_HEIGHT = 44;
@@ -56,14 +59,14 @@ function introWords(tune: BandstandTune, ownIntroBars: number | null): string {
 }
 const THEME_CLASS: Record<Theme, string> = { stage: "pp-theme-stage", ember: "pp-theme-ember" };
 
-export function Bandstand({ tunes, instrument, start = 0, exitHref, onTuneChange }: BandstandProps) {
+export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exitHref, onTuneChange }: BandstandProps) {
   const settings = useReadingSettings();
   const online = useOnline();
   const [index, setIndex] = useState(() => Math.min(Math.max(0, start), Math.max(0, tunes.length - 1)));
   const [size, setSize] = useState({ width: 0, height: 0 });
   const [ends, setEnds] = useState({ atStart: true, atEnd: true });
   // Backing out of a tune's first page opens the previous tune at its last page, as the band reads it.
-  const [entry, setEntry] = useState<"first" | "last">("first");
+  const [entry, setEntry] = useState<"first" | "last">(startAt);
   const controls = useRef<PagedChartControls>(null);
   const head = useRef<HTMLElement>(null);
   const counter = useRef<HTMLSpanElement>(null);
@@ -104,9 +107,10 @@ export function Bandstand({ tunes, instrument, start = 0, exitHref, onTuneChange
       const moved = delta > 0 ? controls.current?.next() : controls.current?.back();
       // In a set, the same pedal goes on from a tune's last page to the next tune's first.
       if (moved === false && index + delta >= 0 && index + delta <= last) {
-        setEntry(delta > 0 ? "first" : "last");
+        const at = delta > 0 ? "first" : "last";
+        setEntry(at);
         setIndex(index + delta);
-        onTuneChange?.(index + delta);
+        onTuneChange?.(index + delta, at);
       }
       return moved;
     },
@@ -118,7 +122,7 @@ export function Bandstand({ tunes, instrument, start = 0, exitHref, onTuneChange
     if (i < 0 || i >= tunes.length || i === index) return;
     setEntry("first");
     setIndex(i);
-    onTuneChange?.(i);
+    onTuneChange?.(i, "first");
   };
   const setTheme = (theme: Theme) => saveReadingSettings({ ...settings, theme });
   const toggleHalf = () => saveReadingSettings({ ...settings, halfTurns: !settings.halfTurns });

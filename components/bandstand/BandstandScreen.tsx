@@ -1,7 +1,7 @@
 "use client";
 // The bandstand view's route shell: the chart (and, with ?list=, the tunes around it) from the local
 // book, the reader's part, key and intro from the address.
-import { useEffect, useMemo } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { markChartSeen, useBandCharts, useChart, useMembership } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
 import { chartQuery } from "@/components/chart/params";
@@ -14,6 +14,9 @@ export function BandstandScreen() {
   const charts = useBandCharts(bandId);
   const membership = useMembership(bandId);
   const choices = useChoices(bandId, membership?.instrument);
+  // Moving to another tune of the list changes the address and so remounts the view; this keeps
+  // which page it should open at (the last one when backing into the tune before).
+  const [enterAt, setEnterAt] = useState<"first" | "last">("first");
 
   useEffect(() => {
     if (chartId && local) void markChartSeen(chartId);
@@ -52,9 +55,11 @@ export function BandstandScreen() {
       key={`${local.id}:${choices.instrument}`}
       tunes={tunes}
       start={start}
+      startAt={enterAt}
       instrument={choices.instrument}
       exitHref={`${base}/${encodeURIComponent(chartId)}${choices.query}`}
-      onTuneChange={(i) => {
+      onTuneChange={(i, at) => {
+        setEnterAt(at);
         // Keep the address on the tune being read, so a reload (or the service worker) reopens it.
         const id = listedIds[i];
         if (id) {

@@ -1,7 +1,7 @@
 // Text, boxes and brackets drawn straight into VexFlow's SVG. Chord symbols are one <text> with a
 // raised <tspan> for extensions, so the browser places the parts and nothing needs measuring.
 import type { RenderContext } from "vexflow/bravura";
-import { SUPERSCRIPT_SCALE, splitSymbol, textWidth } from "@/lib/render/metrics";
+import { SUPERSCRIPT_SCALE, labelBoxWidth, splitSymbol } from "@/lib/render/metrics";
 import { chordParts } from "./chord-parts";
 
 const NS = "http://www.w3.org/2000/svg";
@@ -63,7 +63,7 @@ export function drawChordSymbol(ctx: RenderContext, symbol: string, x: number, y
 
 /** A boxed rehearsal label; returns the box width. */
 export function drawLabelBox(ctx: RenderContext, label: string, x: number, top: number, size: number, intro: boolean): number {
-  const w = Math.ceil(textWidth(label, size) * 0.9) + 12;
+  const w = labelBoxWidth(label, size);
   const h = size + 8;
   parentOf(ctx).appendChild(
     el("rect", { x, y: top, width: w, height: h, rx: 2, fill: "none", stroke: "currentColor", "stroke-width": intro ? 1.5 : 2 }),

@@ -4,7 +4,7 @@ import type { Arrangement, PerformanceBar } from "@/lib/chart/model";
 import type { ChartLayout, Clef, LayoutOptions, Page, PlacedBar, System } from "./types";
 import { minBarWidth, placeChords } from "./bars";
 import { keyAccidentalCount } from "./keys";
-import { BAR_PAD_END, BAR_PAD_START, MARGIN, STAFF_HEIGHT, openingWidth } from "./metrics";
+import { BAR_PAD_END, BAR_PAD_START, MARGIN, STAFF_HEIGHT, labelBoxWidth, openingWidth } from "./metrics";
 import { clefFor } from "./part-label";
 
 interface Spacing {
@@ -72,6 +72,8 @@ interface LineContext {
   fontSize: number;
   opening: (firstLine: boolean) => number;
   firstIntroIndex: number | null;
+  /** Compact rows put the chord symbols level with the label box, so symbols start after it. */
+  compact: boolean;
 }
 
 function placeLine(line: Line, lineIndex: number, ctx: LineContext): PlacedBar[] {
@@ -88,8 +90,10 @@ function placeLine(line: Line, lineIndex: number, ctx: LineContext): PlacedBar[]
     const first = i === 0;
     const width = (widths[i] ?? nominal) + (first ? opening : 0);
     const noteX = x + (first ? opening : 0) + BAR_PAD_START;
-    const noteWidth = x + width - BAR_PAD_END - noteX;
-    const { boxes } = placeChords(bar, ctx.beats, ctx.fontSize, noteX, noteWidth);
+    const label = bar.section ?? (bar.index === ctx.firstIntroIndex ? "Intro" : null);
+    const chordX = ctx.compact && label ? Math.max(noteX, x + labelBoxWidth(label) + 6) : noteX;
+    const chordWidth = Math.max(1, x + width - BAR_PAD_END - chordX);
+    const { boxes } = placeChords(bar, ctx.beats, ctx.fontSize, chordX, chordWidth);
     const prev = line.bars[i - 1];
     const next = line.bars[i + 1];
     const placed: PlacedBar = {
@@ -100,7 +104,7 @@ function placeLine(line: Line, lineIndex: number, ctx: LineContext): PlacedBar[]
       showClef: first,
       showKey: first,
       showTime: first && lineIndex === 0,
-      label: bar.section ?? (bar.index === ctx.firstIntroIndex ? "Intro" : null),
+      label,
       intro: bar.part === "intro",
       chords: boxes,
       endingStart: bar.ending !== null && (!prev || prev.ending !== bar.ending),
@@ -135,6 +139,7 @@ export function layoutChart(arrangement: Arrangement, options: LayoutOptions): C
     fontSize,
     opening,
     firstIntroIndex: arrangement.bars.find((b) => b.part === "intro")?.index ?? null,
+    compact,
   };
   const lines = breakLines(arrangement.bars, ctx).map((line, i) => placeLine(line, i, ctx));
   const pages = paginate(lines, { width, height, zoom, fontSize, header: options.header ?? true, compact });

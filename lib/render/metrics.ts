@@ -12,6 +12,11 @@ export const CHORD_END_SLACK = 4;
 export const BAR_PAD_START = 10;
 export const BAR_PAD_END = 8;
 export const MIN_BEAT_SPACE = 20;
+/** Rehearsal-label font size, and the width of its box (the engraver draws the box to this). */
+export const LABEL_FONT_SIZE = 15;
+export function labelBoxWidth(label: string, size = LABEL_FONT_SIZE): number {
+  return Math.ceil(textWidth(label, size) * 0.9) + 12;
+}
 /** Superscript size relative to the chord font. */
 export const SUPERSCRIPT_SCALE = 0.62;
 

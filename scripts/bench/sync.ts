@@ -5,7 +5,7 @@
 //   - the same pull built in-process, without HTTP, for comparison.
 // Against the real Next route when a production build exists (NEXT_DIST_DIR, default .next), else
 // against a bare node:http wrapper of the same server code (and says so).
-// Env: BENCH_SYNC_PORT (3305), BENCH_SECONDS (8), BENCH_CHARTS (1000).
+// Env: BENCH_SYNC_PORT (3305), BENCH_SECONDS (8), BENCH_CHARTS (1000), BENCH_NODE_ARGS (node flags for the server).
 import { spawn, type ChildProcess } from "node:child_process";
 import { randomUUID } from "node:crypto";
 import fs from "node:fs";
@@ -167,6 +167,16 @@ function deviceTransport(base: string, cookie: string, count: { bytes: number; r
   };
 }
 
+/** CPU seconds (user + system) a process has used so far, from /proc (Linux). */
+function cpuSeconds(pid: number): number {
+  try {
+    const fields = fs.readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1]!.split(" ");
+    return (Number(fields[11]) + Number(fields[12])) / 100;
+  } catch {
+    return Number.NaN;
+  }
+}
+
 const kb = (n: number) => `${(n / 1024).toFixed(1)} KB`;
 
 async function main() {
@@ -182,7 +192,9 @@ async function main() {
   let cookie = "";
   const built = fs.existsSync(path.join(root, distDir, "BUILD_ID"));
   if (built) {
-    child = spawn(path.join(root, "node_modules/.bin/next"), ["start", "-p", String(PORT)], {
+    // BENCH_NODE_ARGS (e.g. "--cpu-prof --cpu-prof-dir=/tmp/prof") profiles the server process.
+    const nodeArgs = (process.env.BENCH_NODE_ARGS ?? "").split(" ").filter(Boolean);
+    child = spawn(process.execPath, [...nodeArgs, path.join(root, "node_modules/next/dist/bin/next"), "start", "-p", String(PORT)], {
       cwd: root,
       env: { ...process.env, NEXT_DIST_DIR: distDir, DATABASE_PATH: file, NEXTAUTH_URL: base, NEXTAUTH_SECRET: "bench-only-secret", NODE_ENV: "production" },
       stdio: "ignore",
@@ -222,17 +234,27 @@ async function main() {
 
     // Pulls per second: pages of 50 changes.
     const url = `${base}/api/bands/${bandId}/sync?since=0&limit=50`;
+    const cpuBefore = child?.pid ? cpuSeconds(child.pid) : null;
     const r = await autocannon({ url, connections: 8, duration: SECONDS, headers: cookie ? { cookie } : {} });
     console.log(`route: ${Math.round(r.requests.average)} pulls/s of 50 changes (target ≥ 1000), p50 ${r.latency.p50} ms, p99 ${r.latency.p99} ms, ${r.non2xx} non-2xx, ${r.errors} errors`);
+    // On a shared machine wall-clock rates move with everyone else's load; the server's own CPU time
+    // per request does not, so it is printed too (and what one core would serve at that cost).
+    if (cpuBefore !== null && child?.pid) {
+      const cpu = (cpuSeconds(child.pid) - cpuBefore) / Math.max(1, r.requests.average * SECONDS);
+      console.log(`route: ${(cpu * 1000).toFixed(2)} ms of server CPU per pull = ${Math.round(1 / cpu)} pulls/s per core`);
+    }
 
     // In-process, for comparison (no HTTP, no session check).
     const end = performance.now() + 2000;
+    const cpu0 = process.cpuUsage();
     let n = 0;
     while (performance.now() < end) {
       await pullChanges(db, leader, bandId, { since: 0, limit: 50 });
       n++;
     }
-    console.log(`in-process pullChanges: ${Math.round(n / 2)} pages of 50 per second`);
+    const cpu1 = process.cpuUsage(cpu0);
+    const perPage = (cpu1.user + cpu1.system) / 1e6 / n;
+    console.log(`in-process pullChanges: ${Math.round(n / 2)} pages of 50 per second (${(perPage * 1000).toFixed(2)} ms CPU each = ${Math.round(1 / perPage)}/s per core)`);
   } finally {
     child?.kill("SIGTERM");
     server?.close();

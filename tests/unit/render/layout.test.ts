@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { layoutChart } from "@/lib/render/layout";
-import { estimateSymbolWidth } from "@/lib/render/metrics";
+import { estimateSymbolWidth, labelBoxWidth } from "@/lib/render/metrics";
 import type { ChartLayout, PlacedBar } from "@/lib/render/types";
 import { arrangement, bar } from "./fixtures";
 
@@ -147,5 +147,44 @@ describe("layoutChart", () => {
     const layout = layoutChart({ ...arrangement(1), bars: [] }, TABLET);
     expect(layout.pages).toHaveLength(1);
     expect(layout.pages[0]!.systems).toEqual([]);
+  });
+
+  describe("compact spacing for the chart page", () => {
+    // The chart box on a 1280×720 laptop, measured in Chromium: 888 × 451 CSS px beside the pickers.
+    const LAPTOP_BOX = { width: 888, height: 451, zoom: 1 };
+
+    it("fits at least four systems on the first page, where the roomy layout fits fewer", () => {
+      const compact = layoutChart(arrangement(32), { ...LAPTOP_BOX, compact: true });
+      const roomy = layoutChart(arrangement(32), LAPTOP_BOX);
+      expect(compact.pages[0]!.systems.length).toBeGreaterThanOrEqual(4);
+      expect(roomy.pages[0]!.systems.length).toBeLessThan(compact.pages[0]!.systems.length);
+      expect(compact.pages[0]!.header).toMatchObject({ compact: true });
+      expect(compact.pages[0]!.header!.height).toBeLessThan(roomy.pages[0]!.header!.height);
+      expect(roomy.pages[0]!.header!.compact).toBeUndefined();
+    });
+
+    it("starts a labelled bar's symbols after its label box, which shares their row", () => {
+      const layout = layoutChart(arrangement(18, { intro: 2 }), { ...LAPTOP_BOX, compact: true, keyAccidentals: 0 });
+      const labelled = allBars(layout).filter((b) => b.label);
+      expect(labelled.length).toBeGreaterThan(0);
+      for (const b of labelled) expect(b.chords[0]!.x).toBeGreaterThanOrEqual(b.x + labelBoxWidth(b.label!));
+    });
+
+    it("keeps every system inside the page, in order and without overlap, and stays deterministic", () => {
+      for (const size of [PHONE, TABLET, LAPTOP_BOX]) {
+        const opts = { ...size, compact: true };
+        const layout = layoutChart(arrangement(64, { intro: 4 }), opts);
+        for (const page of layout.pages) {
+          page.systems.forEach((s, i) => {
+            expect(s.y + s.height).toBeLessThanOrEqual(page.height);
+            const prev = page.systems[i - 1];
+            if (prev) expect(s.y).toBeGreaterThanOrEqual(prev.y + prev.height);
+          });
+        }
+        expect(allBars(layout).map((b) => b.bar.index)).toEqual(Array.from({ length: 64 }, (_, i) => i));
+        checkNoOverlap(layout);
+        expect(JSON.stringify(layoutChart(arrangement(64, { intro: 4 }), opts))).toBe(JSON.stringify(layout));
+      }
+    });
   });
 });

@@ -9,9 +9,13 @@ export const dynamic = "force-dynamic";
 
 const Params = z.object({ bandId: z.string().min(1).max(64) });
 
+const utf8 = new TextEncoder();
+
 export const GET = route({ params: Params, query: PullQuerySchema }, async ({ actor, params, query }) => {
   const body = await pullChanges(await ready(), actor, params.bandId, query);
-  return new Response(body, { headers: { "content-type": "application/json; charset=utf-8", "cache-control": "no-store" } });
+  // Bytes, not a string: a string body is measured (byteLength) and then encoded, two passes over a
+  // page that can be a few hundred KB.
+  return new Response(utf8.encode(body), { headers: { "content-type": "application/json; charset=utf-8", "cache-control": "no-store" } });
 });
 
 export const POST = route({ params: Params, body: PushBodySchema }, async ({ actor, params, body }) => {
