@@ -1,7 +1,9 @@
 "use client";
 // The bandstand view's route shell: the chart (and, with ?list=, the tunes around it) from the local
 // book, the reader's part, key and intro from the address.
+import { useSearchParams } from "next/navigation";
 import { useEffect, useMemo, useState } from "react";
+import { PartOnStand } from "@/components/pdf";
 import { markChartSeen, useBandCharts, useChart, useMembership } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
 import { chartQuery } from "@/components/chart/params";
@@ -17,6 +19,8 @@ export function BandstandScreen() {
   // Moving to another tune of the list changes the address and so remounts the view; this keeps
   // which page it should open at (the last one when backing into the tune before).
   const [enterAt, setEnterAt] = useState<"first" | "last">("first");
+  // ?part=<id>: read one of the chart's PDF or image parts instead of the engraved chart.
+  const partId = useSearchParams().get("part");
 
   useEffect(() => {
     if (chartId && local) void markChartSeen(chartId);
@@ -48,6 +52,9 @@ export function BandstandScreen() {
         This chart is not in your book on this device. <a href={`/bands/${encodeURIComponent(bandId)}`}>Back to the library</a>
       </p>
     );
+  }
+  if (partId) {
+    return <PartOnStand chartId={local.id} chartTitle={local.title} partId={partId} exitHref={`/bands/${encodeURIComponent(bandId)}/import/parts?chart=${encodeURIComponent(chartId)}`} />;
   }
   const listedIds = ids.filter((id) => id === local.id || charts?.some((c) => c.id === id));
   return (

@@ -3,13 +3,12 @@
 // on this device for reading with no signal, and open one on the stand.
 import { useLiveQuery } from "dexie-react-hooks";
 import Link from "next/link";
-import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { useRouter, useSearchParams } from "next/navigation";
 import { useEffect, useState } from "react";
-import { PartScreen } from "@/components/pdf";
 import { Button } from "@/components/ui/Button";
 import { Notice } from "@/components/ui/Notice";
 import { PageColumn, PageTitle } from "@/components/ui/Page";
-import { chartParts, fetchMissingAttachmentFiles, readAttachmentFile } from "@/lib/offline/attachments";
+import { chartParts, fetchMissingAttachmentFiles } from "@/lib/offline/attachments";
 import { getLocalBook } from "@/lib/offline/db";
 import { syncNow, useChart, useMembership, useOnline } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
@@ -22,9 +21,7 @@ export function PartsScreen() {
   const { bandId } = useBandRoute();
   const params = useSearchParams();
   const router = useRouter();
-  const pathname = usePathname();
   const chartId = params.get("chart");
-  const partId = params.get("part");
   const online = useOnline();
   const chart = useChart(bandId, chartId);
   const membership = useMembership(bandId ?? "");
@@ -37,9 +34,9 @@ export function PartsScreen() {
   }, [bandId, chartId, online, parts?.length]);
 
   if (!bandId || !chartId) return null;
-  const here = (part: string | null) => `${pathname}?chart=${encodeURIComponent(chartId)}${part ? `&part=${encodeURIComponent(part)}` : ""}`;
-  const open = parts?.find((p) => p.id === partId);
-  if (partId && open) return <OpenPart partId={partId} type={open.type} label={`${chart?.title ?? "Chart"}: ${open.filename}`} exitHref={here(null)} />;
+  // Parts are read in the bandstand view, with its themes, tap zones and pedal keys.
+  const onStand = (part: string) =>
+    `/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(chartId)}/bandstand?part=${encodeURIComponent(part)}`;
 
   const canUpload = membership?.role === "leader" || membership?.role === "arranger";
   const onFile = async (file: File | undefined) => {
@@ -92,7 +89,7 @@ export function PartsScreen() {
                   <span data-testid="part-offline">{p.offline ? "kept on this device" : online ? "downloading…" : "not on this device yet"}</span>
                 </p>
               </div>
-              <Button onClick={() => router.push(here(p.id))} disabled={!p.offline && !online} data-testid="part-open">
+              <Button onClick={() => router.push(onStand(p.id))} disabled={!p.offline && !online} data-testid="part-open">
                 Open on the stand
               </Button>
             </li>
@@ -106,19 +103,4 @@ export function PartsScreen() {
       </p>
     </PageColumn>
   );
-}
-
-function OpenPart({ partId, type, label, exitHref }: { partId: string; type: string; label: string; exitHref: string }) {
-  const online = useOnline();
-  const file = useLiveQuery(() => readAttachmentFile(getLocalBook(), partId), [partId]);
-  if (file === undefined) return null;
-  if (file === null) {
-    return (
-      <PageColumn>
-        <Notice kind="error">This part is not on this device yet. Open it once with a connection and it will be kept here.</Notice>
-        <Link className="underline" href={exitHref}>Back to the parts</Link>
-      </PageColumn>
-    );
-  }
-  return <PartScreen file={file} type={type} label={label} exitHref={exitHref} offline={!online} />;
 }

@@ -2,3 +2,4 @@
 // page turns) or send the reader to PartScreen.
 export { PartViewer, type PartViewerControls, type PartViewerProps } from "./PartViewer";
 export { PartScreen, type PartScreenProps } from "./PartScreen";
+export { PartOnStand, type PartOnStandProps } from "./PartOnStand";

@@ -88,6 +88,7 @@ test("upload a PDF part, then turn its pages with pedal keys and taps with no si
   await page.reload();
   await expect(row.getByTestId("part-offline")).toHaveText("kept on this device", { timeout: 30_000 });
   await row.getByTestId("part-open").click();
+  await expect(page).toHaveURL(/\/charts\/[^/]+\/bandstand\?part=/); // read in the bandstand view
   const viewer = page.getByTestId("part-viewer");
   await expect(viewer).toHaveAttribute("data-status", "ready", { timeout: 30_000 });
   await expect(viewer).toHaveAttribute("data-pages", "2");
