@@ -5,7 +5,7 @@ const config = [
   ...nextVitals,
   ...nextTs,
   {
-    ignores: [".next/**", ".next-*/**", ".*.mjs", ".*.ts", "node_modules/**", "public/sw.js", "public/**/*.mjs", "next-env.d.ts", "test-results/**", "playwright-report/**", "data/**"],
+    ignores: [".next/**", ".next-*/**", ".*.mjs", ".*.ts", "node_modules/**", "public/sw.js", "public/sw-*.js", "public/swe-worker*.js", "public/**/*.mjs", "next-env.d.ts", "test-results/**", "playwright-report/**", "data/**"],
   },
 ];
 
