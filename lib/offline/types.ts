@@ -1,7 +1,7 @@
 // What the UI reads from the local book. Rows in Dexie carry a few internal fields on top.
 import type { Chart } from "@/lib/chart/model";
 import type { Role } from "@/db/schema";
-import type { MutationIn, RevisionMeta, WireSetlistEntry } from "./protocol";
+import type { MutationIn, RevisionMeta, WireAnnotation, WireAttachment, WireSetlist, WireSetlistEntry } from "./protocol";
 
 export interface LocalSession {
   userId: string;
@@ -77,42 +77,19 @@ export interface LocalRevision {
   meta: RevisionMeta;
 }
 
-export interface LocalSetlist {
-  id: string;
-  bandId: string;
-  name: string;
-  startsAt: string | null;
-  venue: string;
-  notes: string;
-  revision: number;
-  updatedAt: string;
-  updatedBy: string;
-}
+export type LocalSetlist = Omit<WireSetlist, "entries">;
 
 export interface LocalSetlistEntry extends WireSetlistEntry {
   bandId: string;
 }
 
-export interface LocalAnnotation {
-  id: string;
+export interface LocalAnnotation extends WireAnnotation {
   bandId: string;
-  chartId: string;
-  revision: number;
-  updatedAt: string;
-  data: unknown;
   localEdit?: boolean;
 }
 
-export interface LocalAttachment {
-  id: string;
+export interface LocalAttachment extends WireAttachment {
   bandId: string;
-  chartId: string;
-  filename: string;
-  sha256: string;
-  size: number;
-  type: string;
-  pages: number | null;
-  createdAt: string;
 }
 
 export interface LocalAttachmentFile {
