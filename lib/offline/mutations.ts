@@ -4,7 +4,7 @@
 // and the next sync sends it. The same checks run here first, so a bad chart text is caught offline too.
 import { ChartTextError, parseChartText } from "@/lib/chart";
 import { ChartSchema, type Chart } from "@/lib/chart/model";
-import { ChartCreateSchema, ChartUpdateSchema, type ChartCreate, type ChartUpdate } from "@/lib/validation/chart-input";
+import { ChartCreateSchema, ChartUpdateSchema, type ChartCreate, type ChartDto, type ChartUpdate } from "@/lib/validation/chart-input";
 import { putServerChart } from "./apply";
 import { deleteChartLocally, getLocalBook, type LocalBook } from "./db";
 import { enqueue, newId } from "./outbox";
@@ -27,28 +27,11 @@ export type SaveResult =
 
 export type ChartSaveInput = ChartCreate | (ChartUpdate & { id: string });
 
-/** The chart as the backend returns it from its REST routes. */
-interface ChartDtoLike {
-  id: string;
-  bandId: string;
-  title: string;
-  composer: string;
-  key: string;
-  meter: string;
-  tempo: number | null;
-  feel: string;
-  sourceText: string;
-  body: Chart;
-  revision: number;
-  updatedBy: { id: string; name: string };
-  updatedAt: string;
-}
-
 interface ErrorBody {
-  error?: { code?: string; message?: string; fields?: FieldProblem[]; current?: ChartDtoLike };
+  error?: { code?: string; message?: string; fields?: FieldProblem[]; current?: ChartDto };
 }
 
-function fromDto(d: ChartDtoLike): WireChart {
+function fromDto(d: ChartDto): WireChart {
   return {
     id: d.id, bandId: d.bandId, title: d.title, composer: d.composer, concertKey: d.key, meter: d.meter, tempo: d.tempo, feel: d.feel,
     revision: d.revision, updatedAt: d.updatedAt, updatedBy: d.updatedBy.id, updatedByName: d.updatedBy.name,
@@ -102,7 +85,7 @@ async function send(path: string, init: RequestInit): Promise<Sent> {
 
 async function answerToResult(book: LocalBook, bandId: string, res: Response): Promise<SaveResult> {
   const who = (await me(book))?.userId ?? null;
-  const body = (await res.json().catch(() => ({}))) as { chart?: ChartDtoLike } & ErrorBody;
+  const body = (await res.json().catch(() => ({}))) as { chart?: ChartDto } & ErrorBody;
   if (res.ok && body.chart) {
     const row = await putServerChart(book, fromDto(body.chart), who);
     void getSyncEngine().sync({ bandId, force: false }); // brings the history list along

@@ -4,7 +4,7 @@ import "server-only";
 import { ChartTextError, parseChartText } from "@/lib/chart";
 import { ChartSchema, type Chart } from "@/lib/chart/model";
 import type { ChartRow } from "@/db/schema";
-import type { ChartInput } from "@/lib/validation/chart-input";
+import type { ChartDto, ChartInput } from "@/lib/validation/chart-input";
 import { AppError } from "./errors";
 
 export interface ChartMeta {
@@ -71,22 +71,7 @@ export function prepareChart(input: Pick<ChartInput, "title" | "composer" | "key
   };
 }
 
-export interface ChartDto {
-  id: string;
-  bandId: string;
-  title: string;
-  composer: string;
-  key: string;
-  meter: string;
-  tempo: number | null;
-  feel: string;
-  sourceText: string;
-  body: Chart;
-  revision: number;
-  updatedBy: { id: string; name: string };
-  updatedAt: string;
-  deletedAt: string | null;
-}
+export type { ChartDto };
 
 export type ChartSummary = Omit<ChartDto, "sourceText" | "body">;
 
