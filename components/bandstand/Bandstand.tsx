@@ -225,7 +225,8 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
         </button>
         {!online ? (
           <span className="pp-offline" data-testid="offline-badge" role="status">
-            Offline · reading from this device
+            {/* Short on screen, where the bar is cramped on a phone; whole for a screen reader. */}
+            Offline<span className="sr-only"> · reading from this device</span>
           </span>
         ) : null}
       </nav>
