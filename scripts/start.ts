@@ -117,7 +117,9 @@ export async function runStart(flags: StartFlags): Promise<void> {
   const fakes = await startFakes();
 
   const nextBin = path.join(root, "node_modules", ".bin", "next");
-  const child = spawn(nextBin, [flags.dev ? "dev" : "start", "-p", String(port)], { stdio: "inherit", env: process.env });
+  // A keep-alive longer than clients' idle reuse, so a reused socket is never closed under a request.
+  const args = flags.dev ? ["dev", "-p", String(port)] : ["start", "-p", String(port), "--keepAliveTimeout", "65000"];
+  const child = spawn(nextBin, args, { stdio: "inherit", env: process.env });
 
   let closing = false;
   const shutdown = async (code: number) => {
