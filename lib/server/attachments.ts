@@ -1,4 +1,5 @@
 import "server-only";
+import type { WireAttachment } from "@/lib/offline/protocol";
 // PDF and image parts of a chart: the type is read from the file's first bytes (never trusted from
 // the name or the browser), the size is capped, and the file is stored once under its sha256 in the
 // data folder. Each upload adds a row and an "attachment" change so devices fetch it for offline use.
@@ -18,16 +19,8 @@ export const MAX_ATTACHMENT_BYTES = 20 * 1024 * 1024;
 export const ATTACHMENT_TYPES = ["application/pdf", "image/png", "image/jpeg"] as const;
 export type AttachmentType = (typeof ATTACHMENT_TYPES)[number];
 
-export interface AttachmentDto {
-  id: string;
-  chartId: string;
-  filename: string;
-  sha256: string;
-  size: number;
-  type: string;
-  pages: number | null;
-  createdAt: string;
-}
+/** The wire shape devices store (one definition, shared with the sync client). */
+export type AttachmentDto = WireAttachment;
 
 export function dataDir(): string {
   // the data folder is chosen at run time; the build must not trace it
