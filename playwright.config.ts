@@ -4,6 +4,9 @@ import { defineConfig, devices } from "@playwright/test";
 // a fresh SQLite file seeded with the demo band, and the local mail and payment fakes.
 const PORT = Number(process.env.E2E_PORT ?? 3100);
 export const baseURL = `http://localhost:${PORT}`;
+// The local fakes sit just above the app's port, so two checkouts can run their suites side by side.
+const MAIL_FAKE_HTTP_PORT = String(PORT + 26);
+process.env.MAIL_FAKE_HTTP_PORT ??= MAIL_FAKE_HTTP_PORT;
 
 export default defineConfig({
   testDir: "tests/e2e",
@@ -46,10 +49,10 @@ export default defineConfig({
       NEXTAUTH_URL: baseURL,
       NEXTAUTH_SECRET: "e2e-only-secret-not-for-production",
       MAIL_FAKE: "1",
-      SMTP_PORT: "3125",
-      MAIL_FAKE_HTTP_PORT: "3126",
+      SMTP_PORT: String(PORT + 25),
+      MAIL_FAKE_HTTP_PORT,
       PAYMENT_FAKE: "1",
-      PAYMENT_FAKE_PORT: "3127",
+      PAYMENT_FAKE_PORT: String(PORT + 27),
     },
   },
 });
