@@ -79,7 +79,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
     const chartId = adding[setNumber] ?? "";
     if (!chartId) return;
     const position = (bySet.get(setNumber) ?? []).length;
-    setEntries((all) => [...all, { id: newId(), chartId, setNumber, position, key: null, tempo: null, intro: null, ending: null, soloOrder: "", notes: "" }]);
+    setEntries((all) => [...all, { id: newId(), chartId, setNumber, position, key: null, tempo: null, intro: null, ending: null, soloOrder: "", choruses: 1, straightIn: false, notes: "" }]);
     setAdding((a) => ({ ...a, [setNumber]: "" }));
   }
 

@@ -18,8 +18,11 @@ import { GigEditorHost } from "./GigEditor";
 import { SetTunes, type TuneInfo } from "./SetTunes";
 import { SharePanel } from "./SharePanel";
 
-function plain(e: SetlistEntry): SetlistEntry {
-  return { id: e.id, chartId: e.chartId, setNumber: e.setNumber, position: e.position, key: e.key, tempo: e.tempo, intro: e.intro, ending: e.ending, soloOrder: e.soloOrder, notes: e.notes };
+function plain(e: Omit<SetlistEntry, "choruses" | "straightIn"> & { choruses?: number; straightIn?: boolean }): SetlistEntry {
+  return {
+    id: e.id, chartId: e.chartId, setNumber: e.setNumber, position: e.position, key: e.key, tempo: e.tempo,
+    intro: e.intro, ending: e.ending, soloOrder: e.soloOrder, choruses: e.choruses ?? 1, straightIn: e.straightIn ?? false, notes: e.notes,
+  };
 }
 
 export function GigScreen() {
@@ -60,7 +63,7 @@ export function GigScreen() {
   async function duplicate() {
     const id = newId();
     const copy = entries.map((e) => ({ ...e, id: newId() }));
-    await saveSetlist(bandId!, id, 0, { name: `${setlist.name} (next gig)`, startsAt: null, venue: setlist.venue, notes: setlist.notes }, copy);
+    await saveSetlist(bandId!, id, 0, { name: `${setlist.name} (next gig)`, startsAt: null, venue: setlist.venue, notes: setlist.notes, setMinutes: setlist.setMinutes }, copy);
     router.push(`${base}/${encodeURIComponent(id)}`);
   }
   async function remove() {
