@@ -82,6 +82,7 @@ describe("set durations (item 24)", () => {
 
   it("adds the chart's own intro and a tag: 2 + 8 × 3 + 4 × 3 = 38 bars; 38 × 4 × 60 / 120 = 76 s", () => {
     const kettle = { ...kettleChart(), tempo: 120 }; // 8-bar form, 2-bar composed intro
+    const t = tuneTiming(kettle, entryOf({ soloOrder: "piano", ending: { kind: "tag", bars: 4, times: 3 } }));
     expect(t.introBars).toBe(2);
     expect(t.endingBars).toBe(12);
     expect(t.totalBars).toBe(38);
