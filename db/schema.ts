@@ -90,6 +90,8 @@ export interface SetlistsTable {
   updated_by: string;
   updated_at: string;
   deleted_at: string | null;
+  /** The length the leader wants for each set, in minutes: JSON array, index 0 = set 1 (null = not set). */
+  set_minutes_json: ColumnType<string, string | undefined, string>;
 }
 
 export interface SetlistEntriesTable {
@@ -104,7 +106,19 @@ export interface SetlistEntriesTable {
   ending: string | null; // ending choice as JSON text
   tempo: number | null;
   solo_order: string;
+  /** Choruses each soloist takes on this tune tonight. */
+  choruses: ColumnType<number, number | undefined, number>;
+  /** 1 = no intro tonight (straight in at the top), even where the chart has its own. */
+  straight_in: ColumnType<number, number | undefined, number>;
   notes: string;
+}
+
+/** Charts put away: tombstoned in `charts` like a delete, kept here so they can be brought back. */
+export interface ChartArchiveTable {
+  chart_id: string;
+  band_id: string;
+  archived_at: string;
+  archived_by: string;
 }
 
 export interface AnnotationsTable {
@@ -206,6 +220,7 @@ export interface Database {
   chart_revisions: ChartRevisionsTable;
   setlists: SetlistsTable;
   setlist_entries: SetlistEntriesTable;
+  chart_archive: ChartArchiveTable;
   annotations: AnnotationsTable;
   attachments: AttachmentsTable;
   shares: SharesTable;

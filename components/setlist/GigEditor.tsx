@@ -6,9 +6,10 @@ import { Button } from "@/components/ui/Button";
 import { Field, SelectField, TextAreaField } from "@/components/ui/Field";
 import { Notice } from "@/components/ui/Notice";
 import type { LocalChart, LocalSetlist } from "@/lib/offline/types";
-import { checkArrangement, groupBySet, MAX_SETS, renumber, type SetlistEntry } from "@/lib/setlist";
+import { checkArrangement, groupBySet, MAX_SETS, renumber, SetMinutesSchema, type SetlistEntry } from "@/lib/setlist";
 import { newId, saveSetlist, type SaveOutcome } from "./data";
 import { fromLocalInput, toLocalInput } from "./datetime";
+import { SetLength } from "./SetLength";
 import { SetTunes, type TuneInfo } from "./SetTunes";
 
 export interface Draft {
@@ -16,6 +17,7 @@ export interface Draft {
   startsAt: string | null;
   venue: string;
   notes: string;
+  setMinutes: (number | null)[];
   entries: SetlistEntry[];
 }
 
@@ -44,7 +46,9 @@ export function GigEditorHost(props: Props) {
 }
 
 function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, onDirty }: Props & { note: string; onNote: (n: string) => void; onDirty: (d: boolean) => void }) {
-  const [draft, setDraft] = useState<Draft>({ name: setlist.name, startsAt: setlist.startsAt, venue: setlist.venue, notes: setlist.notes, entries: initial });
+  const [draft, setDraft] = useState<Draft>({
+    name: setlist.name, startsAt: setlist.startsAt, venue: setlist.venue, notes: setlist.notes, setMinutes: setlist.setMinutes ?? [], entries: initial,
+  });
   const [extraSets, setExtraSets] = useState(0);
   const [dirty, setDirtyHere] = useState(false);
   const setDirty = (d: boolean) => {
@@ -60,7 +64,15 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
   const highestSet = draft.entries.reduce((n, e) => Math.max(n, e.setNumber), 1);
   const setCount = Math.min(MAX_SETS, Math.max(highestSet, 1 + extraSets));
   const bySet = new Map(groupBySet(draft.entries).map((s) => [s.setNumber, s.entries]));
-  const problems = draft.entries.flatMap((e) => checkArrangement(tunes.get(e.chartId)?.chart ?? null, e).issues.map((i) => `${tunes.get(e.chartId)?.title ?? "A tune"}: ${i.message}`));
+  const problems = [
+    ...draft.entries.flatMap((e) => checkArrangement(tunes.get(e.chartId)?.chart ?? null, e).issues.map((i) => `${tunes.get(e.chartId)?.title ?? "A tune"}: ${i.message}`)),
+    ...setMinutesProblems(draft.setMinutes),
+  ];
+  function setTarget(setNumber: number, minutes: number | null) {
+    const next = Array.from({ length: Math.max(draft.setMinutes.length, setNumber) }, (_, i) => draft.setMinutes[i] ?? null);
+    next[setNumber - 1] = minutes;
+    update({ setMinutes: next });
+  }
 
   function update(patch: Partial<Draft>) {
     setDraft((d) => ({ ...d, ...patch }));
@@ -79,7 +91,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
     const chartId = adding[setNumber] ?? "";
     if (!chartId) return;
     const position = (bySet.get(setNumber) ?? []).length;
-    setEntries((all) => [...all, { id: newId(), chartId, setNumber, position, key: null, tempo: null, intro: null, ending: null, soloOrder: "", notes: "" }]);
+    setEntries((all) => [...all, { id: newId(), chartId, setNumber, position, key: null, tempo: null, intro: null, ending: null, soloOrder: "", choruses: 1, straightIn: false, notes: "" }]);
     setAdding((a) => ({ ...a, [setNumber]: "" }));
   }
 
@@ -118,6 +130,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
       {Array.from({ length: setCount }, (_, i) => i + 1).map((n) => (
         <section key={n} aria-labelledby={`set-${n}`} className="rounded-lg border border-ink-soft bg-paper-dim p-4" data-testid={`set-${n}`}>
           <h2 id={`set-${n}`} className="mb-3 text-xl font-bold">Set {n}</h2>
+          <SetLength setNumber={n} entries={bySet.get(n) ?? []} tunes={tunes} target={draft.setMinutes[n - 1] ?? null} onTarget={(m) => setTarget(n, m)} />
           <SetTunes
             setNumber={n}
             setCount={setCount}
@@ -182,4 +195,10 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
 /** Keeps set order first, then the order given inside each set. */
 function playOrderBySet(entries: SetlistEntry[]): SetlistEntry[] {
   return [...entries].sort((a, b) => a.setNumber - b.setNumber || a.position - b.position);
+}
+
+/** The set lengths refused with the server's own words ("A set runs at least 5 minutes"). */
+function setMinutesProblems(minutes: (number | null)[]): string[] {
+  const r = SetMinutesSchema.safeParse(minutes);
+  return r.success ? [] : r.error.issues.map((i) => `Set ${Number(i.path[0] ?? 0) + 1} length: ${i.message}`);
 }

@@ -11,15 +11,19 @@ import { PageColumn } from "@/components/ui/Page";
 import { INSTRUMENT_OPTIONS } from "@/components/ui/labels";
 import { chartQuery } from "@/components/chart/params";
 import { useBandRoute } from "@/lib/offline/route";
-import { groupBySet, type SetlistEntry } from "@/lib/setlist";
+import { entryIntro, groupBySet, type SetlistEntry } from "@/lib/setlist";
 import { canEditSetlists, deleteSetlistEverywhere, newId, saveSetlist, useBookCharts, useHasSynced, useMyMembership, useSetlist } from "./data";
 import { gigWhen } from "./datetime";
 import { GigEditorHost } from "./GigEditor";
+import { SetLength } from "./SetLength";
 import { SetTunes, type TuneInfo } from "./SetTunes";
 import { SharePanel } from "./SharePanel";
 
-function plain(e: SetlistEntry): SetlistEntry {
-  return { id: e.id, chartId: e.chartId, setNumber: e.setNumber, position: e.position, key: e.key, tempo: e.tempo, intro: e.intro, ending: e.ending, soloOrder: e.soloOrder, notes: e.notes };
+function plain(e: Omit<SetlistEntry, "choruses" | "straightIn"> & { choruses?: number; straightIn?: boolean }): SetlistEntry {
+  return {
+    id: e.id, chartId: e.chartId, setNumber: e.setNumber, position: e.position, key: e.key, tempo: e.tempo,
+    intro: e.intro, ending: e.ending, soloOrder: e.soloOrder, choruses: e.choruses ?? 1, straightIn: e.straightIn ?? false, notes: e.notes,
+  };
 }
 
 export function GigScreen() {
@@ -55,12 +59,12 @@ export function GigScreen() {
   const editable = canEditSetlists(membership);
   const here = `${base}/${encodeURIComponent(setlist.id)}`;
   const openHref = (e: SetlistEntry) =>
-    `/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(e.chartId)}${chartQuery({ instrument: part, key: e.key, tempo: e.tempo, intro: e.intro ?? undefined, list: setlist.id })}`;
+    `/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(e.chartId)}${chartQuery({ instrument: part, key: e.key, tempo: e.tempo, intro: entryIntro(e), list: setlist.id })}`;
 
   async function duplicate() {
     const id = newId();
     const copy = entries.map((e) => ({ ...e, id: newId() }));
-    await saveSetlist(bandId!, id, 0, { name: `${setlist.name} (next gig)`, startsAt: null, venue: setlist.venue, notes: setlist.notes }, copy);
+    await saveSetlist(bandId!, id, 0, { name: `${setlist.name} (next gig)`, startsAt: null, venue: setlist.venue, notes: setlist.notes, setMinutes: setlist.setMinutes }, copy);
     router.push(`${base}/${encodeURIComponent(id)}`);
   }
   async function remove() {
@@ -94,7 +98,7 @@ export function GigScreen() {
       {editable ? (
         <GigEditorHost key={setlist.id} bandId={bandId} setlist={setlist} initial={entries} charts={charts} openHref={openHref} />
       ) : (
-        <ReadOnlySets entries={entries} tunes={tunes} openHref={openHref} />
+        <ReadOnlySets entries={entries} tunes={tunes} openHref={openHref} setMinutes={setlist.setMinutes ?? []} />
       )}
 
       {membership?.role === "leader" ? (
@@ -106,7 +110,7 @@ export function GigScreen() {
   );
 }
 
-function ReadOnlySets({ entries, tunes, openHref }: { entries: SetlistEntry[]; tunes: Map<string, TuneInfo>; openHref: (e: SetlistEntry) => string }) {
+function ReadOnlySets({ entries, tunes, openHref, setMinutes }: { entries: SetlistEntry[]; tunes: Map<string, TuneInfo>; openHref: (e: SetlistEntry) => string; setMinutes: (number | null)[] }) {
   const sets = groupBySet(entries);
   if (sets.length === 0) return <Notice title="No tunes yet">The leader has not put any tunes on this set list yet.</Notice>;
   const noop = () => undefined;
@@ -115,6 +119,7 @@ function ReadOnlySets({ entries, tunes, openHref }: { entries: SetlistEntry[]; t
       {sets.map((s) => (
         <section key={s.setNumber} aria-labelledby={`set-${s.setNumber}`} className="rounded-lg border border-ink-soft bg-paper-dim p-4" data-testid={`set-${s.setNumber}`}>
           <h2 id={`set-${s.setNumber}`} className="mb-3 text-xl font-bold">Set {s.setNumber}</h2>
+          <SetLength setNumber={s.setNumber} entries={s.entries} tunes={tunes} target={setMinutes[s.setNumber - 1] ?? null} />
           <SetTunes setNumber={s.setNumber} setCount={sets.length} entries={s.entries} tunes={tunes} editable={false} openHref={openHref} onReorder={noop} onChange={noop} onRemove={noop} onMoveToSet={noop} />
         </section>
       ))}
