@@ -27,6 +27,10 @@ interface Props {
   initial: SetlistEntry[];
   charts: LocalChart[];
   openHref?: (e: SetlistEntry) => string;
+  /** The gig's time as typed, saved or not (the share panel's end follows it). */
+  onStartsAt?: (startsAt: string | null) => void;
+  /** A new set list was stored for the first time. */
+  onFirstSave?: () => void;
 }
 
 /**
@@ -45,7 +49,7 @@ export function GigEditorHost(props: Props) {
   return <GigEditor key={generation} {...props} note={note} onNote={setNote} onDirty={setDirty} />;
 }
 
-function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, onDirty }: Props & { note: string; onNote: (n: string) => void; onDirty: (d: boolean) => void }) {
+function GigEditor({ bandId, setlist, initial, charts, openHref, onStartsAt, onFirstSave, note, onNote, onDirty }: Props & { note: string; onNote: (n: string) => void; onDirty: (d: boolean) => void }) {
   const [draft, setDraft] = useState<Draft>({
     name: setlist.name, startsAt: setlist.startsAt, venue: setlist.venue, notes: setlist.notes, setMinutes: setlist.setMinutes ?? [], entries: initial,
   });
@@ -68,6 +72,12 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
     ...draft.entries.flatMap((e) => checkArrangement(tunes.get(e.chartId)?.chart ?? null, e).issues.map((i) => `${tunes.get(e.chartId)?.title ?? "A tune"}: ${i.message}`)),
     ...setMinutesProblems(draft.setMinutes),
   ];
+  // A disabled Save always says why.
+  const blocked = !draft.name.trim()
+    ? "Give the set list a name to save it."
+    : problems.length > 0
+      ? `Fix ${problems.length === 1 ? "the problem" : `the ${problems.length} problems`} listed below to save.`
+      : null;
   function setTarget(setNumber: number, minutes: number | null) {
     const next = Array.from({ length: Math.max(draft.setMinutes.length, setNumber) }, (_, i) => draft.setMinutes[i] ?? null);
     next[setNumber - 1] = minutes;
@@ -75,6 +85,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
   }
 
   function update(patch: Partial<Draft>) {
+    if ("startsAt" in patch) onStartsAt?.(patch.startsAt ?? null);
     setDraft((d) => ({ ...d, ...patch }));
     setDirty(true);
     setOutcome(null);
@@ -103,6 +114,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
       if (r.status === "saved" || r.status === "queued") {
         onNote(r.status === "saved" ? "Saved." : "Saved on this device; it goes to the band when you have signal.");
         setDirty(false);
+        if (setlist.revision === 0) onFirstSave?.();
       }
     } finally {
       setSaving(false);
@@ -115,7 +127,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
     <div className="flex flex-col gap-6">
       <section aria-labelledby="gig-details" className="grid gap-4 sm:grid-cols-2">
         <h2 id="gig-details" className="sr-only">Gig details</h2>
-        <Field label="Name" value={draft.name} maxLength={120} required onChange={(e) => update({ name: e.target.value })} data-testid="gig-name" />
+        <Field label="Name" value={draft.name} maxLength={120} required placeholder="Friday at the harbour bar" onChange={(e) => update({ name: e.target.value })} data-testid="gig-name" />
         <Field
           label="Date and time (your time zone)"
           type="datetime-local"
@@ -167,12 +179,17 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
       ) : null}
 
       <div className="sticky bottom-0 flex flex-wrap items-center gap-3 border-t border-ink-soft bg-paper py-3">
-        <Button onClick={save} disabled={saving || !draft.name.trim() || problems.length > 0} data-testid="save-setlist">
+        <Button onClick={save} disabled={saving || blocked !== null} aria-describedby={blocked ? "save-blocked" : undefined} data-testid="save-setlist">
           {saving ? "Saving…" : "Save set list"}
         </Button>
         <span aria-live="polite" className="text-sm" data-testid="save-state">
           {dirty ? "Unsaved changes." : note}
         </span>
+        {blocked ? (
+          <span id="save-blocked" className="text-sm font-semibold text-red-800" data-testid="save-blocked">
+            {blocked}
+          </span>
+        ) : null}
       </div>
       {problems.length > 0 ? (
         <Notice kind="error" title="Fix these before saving" testId="setlist-problems">
