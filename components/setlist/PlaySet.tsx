@@ -59,6 +59,7 @@ export function PlaySet() {
             nextTitle,
             introText: introInWords(e.intro),
             marks: marks.get(e.chartId),
+            ending: e.ending,
           },
         ];
       }),
