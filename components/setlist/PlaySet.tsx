@@ -59,6 +59,7 @@ export function PlaySet() {
             nextTitle,
             introText: entryIntroInWords(e),
             marks: marks.get(e.chartId),
+            ending: e.ending,
           },
         ];
       }),
