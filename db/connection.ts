@@ -35,6 +35,14 @@ export function sqliteHandle(db: Kysely<Schema>): Database.Database | undefined 
   return handles.get(db);
 }
 
+// The pg pool behind each PostgreSQL instance, for libraries that take a pool (rate limits).
+const pools = new WeakMap<Kysely<Schema>, pg.Pool>();
+
+/** The pg pool of a Kysely instance made by openPostgres (undefined for any other). */
+export function postgresPool(db: Kysely<Schema>): pg.Pool | undefined {
+  return pools.get(db);
+}
+
 // The schema a PostgreSQL instance was opened in, so its migration bookkeeping stays in it too.
 const schemas = new WeakMap<Kysely<Schema>, string>();
 
@@ -66,6 +74,7 @@ export function openPostgres(url: string, opts: PostgresOptions = {}): Kysely<Sc
   pool.on("error", (err) => console.error(`database pool: ${err.message}`));
   const db = new Kysely<Schema>({ dialect: new PostgresDialect({ pool }) });
   if (opts.schema) schemas.set(db, opts.schema);
+  pools.set(db, pool);
   return db;
 }
 
@@ -93,7 +102,13 @@ async function currentSchema(db: Kysely<Schema>): Promise<string> {
 export async function migrateToLatest(db: Kysely<Schema>): Promise<string[]> {
   // Kysely looks for its bookkeeping tables in every schema unless told which one is ours.
   const schema = schemas.get(db) ?? (engineOf(db) === "postgres" ? await currentSchema(db) : undefined);
-  const migrator = new Migrator({ db, provider: migrationProvider, ...(schema ? { migrationTableSchema: schema } : {}) });
+  // Migrations from parallel work may land out of number order; apply whichever are missing.
+  const migrator = new Migrator({
+    db,
+    provider: migrationProvider,
+    allowUnorderedMigrations: true,
+    ...(schema ? { migrationTableSchema: schema } : {}),
+  });
   const { error, results } = await migrator.migrateToLatest();
   if (error) throw error instanceof Error ? error : new Error(String(error));
   return (results ?? []).filter((r) => r.status === "Success").map((r) => r.migrationName);
