@@ -11,6 +11,10 @@ export interface UsersTable {
   password_hash: string | null; // null for accounts made through a sign-in link
   default_instrument: string; // instrument id, see lib/music/instruments
   created_at: string;
+  /** Bumped to end every session of the user at once. */
+  session_version: ColumnType<number, number | undefined, number>;
+  /** When the address was proven by an opened sign-in link; null until then. */
+  email_verified_at: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
 export interface BandsTable {
@@ -226,6 +230,22 @@ export interface Database {
   login_attempts: LoginAttemptsTable;
   sign_in_tokens: SignInTokensTable;
   band_digests: BandDigestsTable;
+  rate_limits: RateLimitsTable;
+  ended_sessions: EndedSessionsTable;
+}
+
+/** rate-limiter-flexible's rows (its own layout); expire is epoch milliseconds. */
+export interface RateLimitsTable {
+  key: string;
+  points: number;
+  expire: number | null;
+}
+
+/** A session ended by signing out, kept until its token would have expired anyway. */
+export interface EndedSessionsTable {
+  sid: string;
+  user_id: string;
+  ends_at: string;
 }
 
 export type User = Selectable<UsersTable>;
