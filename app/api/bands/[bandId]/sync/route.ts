@@ -3,19 +3,17 @@ import { z } from "zod";
 import { ready } from "@/db";
 import { PullQuerySchema, PushBodySchema } from "@/lib/offline/protocol";
 import { route } from "@/lib/server/handler";
-import { pullChanges, pushMutations } from "@/lib/server/sync";
+import { pushMutations } from "@/lib/server/sync";
+import { pullBody } from "@/lib/server/sync-pull";
+import { pullResponse } from "@/lib/server/sync-response";
 
 export const dynamic = "force-dynamic";
 
 const Params = z.object({ bandId: z.string().min(1).max(64) });
 
-const utf8 = new TextEncoder();
-
-export const GET = route({ params: Params, query: PullQuerySchema }, async ({ actor, params, query }) => {
-  const body = await pullChanges(await ready(), actor, params.bandId, query);
-  // Bytes, not a string: a string body is measured (byteLength) and then encoded, two passes over a
-  // page that can be a few hundred KB.
-  return new Response(utf8.encode(body), { headers: { "content-type": "application/json; charset=utf-8", "cache-control": "no-store" } });
+export const GET = route({ params: Params, query: PullQuerySchema }, async ({ actor, params, query, request }) => {
+  const body = await pullBody(await ready(), actor, params.bandId, query);
+  return pullResponse(body, request.headers.get("accept-encoding"));
 });
 
 export const POST = route({ params: Params, body: PushBodySchema }, async ({ actor, params, body }) => {
