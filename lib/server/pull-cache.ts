@@ -10,31 +10,19 @@ import "server-only";
 // process makes a new key. Details that change without a feed entry (a member renaming their account)
 // reach a cached page within TTL_MS. Bounded: at most MAX_ENTRIES pages and MAX_BYTES of text, least
 // recently used first out.
-import { constants, gzipSync } from "node:zlib";
-
 const TTL_MS = 30_000;
 const MAX_ENTRIES = 64;
 const MAX_BYTES = 24 * 1024 * 1024;
 
 const utf8 = new TextEncoder();
 
-/** A pull page's JSON text, with its UTF-8 bytes and gzip made once, when first asked for. */
+/** A pull page's JSON text, with its UTF-8 bytes made once, when first asked for. */
 export class PullBody {
   private raw: Uint8Array | null = null;
-  private gz: Uint8Array | null = null;
   constructor(readonly text: string) {}
 
   bytes(): Uint8Array {
     return (this.raw ??= utf8.encode(this.text));
-  }
-
-  /** zlib's fastest level: a page of charts still shrinks about tenfold. */
-  gzip(): Uint8Array {
-    if (!this.gz) {
-      const b = gzipSync(this.bytes(), { level: constants.Z_BEST_SPEED });
-      this.gz = new Uint8Array(b.buffer, b.byteOffset, b.byteLength);
-    }
-    return this.gz;
   }
 }
 

@@ -1,14 +1,13 @@
 // The sync pull's fast paths: an up-to-date poll answered from the band's cursor, pages kept in the
-// page cache, gzip when asked. Each must give the same answer as building the page from the feed,
+// page cache. Each must give the same answer as building the page from the feed,
 // and must never hand out what the caller may no longer see.
-import { gunzipSync } from "node:zlib";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
 import { createChart, updateChart } from "@/lib/server/charts";
 import { removeMember } from "@/lib/server/members";
 import { PullBody, cachedPull, keepPull, pullCacheSize } from "@/lib/server/pull-cache";
-import { acceptsGzip, pullResponse } from "@/lib/server/sync-response";
+import { pullResponse } from "@/lib/server/sync-response";
 import { appError, chartInput, cleanupDbs, freshDb, makeBand, type BandCast } from "../server/helpers";
 import { pull, pullAll } from "../sync/helpers";
 
@@ -81,29 +80,13 @@ describe("the page cache", () => {
   });
 });
 
-describe("gzip", () => {
-  it("reads Accept-Encoding as HTTP says (q=0 refuses, * accepts)", () => {
-    const table: [string | null, boolean][] = [
-      ["gzip, deflate, br", true],
-      ["br;q=1.0, gzip;q=0.8", true],
-      ["gzip;q=0", false],
-      ["deflate", false],
-      ["*", true],
-      ["identity", false],
-      [null, false],
-    ];
-    for (const [header, want] of table) expect(acceptsGzip(header), String(header)).toBe(want);
-  });
-
-  it("gzips a page worth it when asked, to the same bytes, and leaves a small poll alone", async () => {
-    const page = new PullBody(JSON.stringify({ changes: Array.from({ length: 200 }, (_, i) => ({ entity: "chart", id: `c${i}`, op: "upsert" })) }));
-    const zipped = pullResponse(page, "gzip, br");
-    expect(zipped.headers.get("content-encoding")).toBe("gzip");
-    expect(zipped.headers.get("vary")).toBe("Accept-Encoding");
-    const raw = Buffer.from(await zipped.arrayBuffer());
-    expect(gunzipSync(raw).toString("utf8")).toBe(page.text);
-    expect(raw.byteLength).toBeLessThan(page.bytes().byteLength / 4);
-    expect(pullResponse(page, null).headers.get("content-encoding")).toBeNull();
-    expect(pullResponse(new PullBody('{"seq":3,"changes":[]}'), "gzip").headers.get("content-encoding")).toBeNull();
+describe("the response", () => {
+  it("carries the page's bytes as they are, for the server to compress when asked", async () => {
+    const page = new PullBody('{"seq":3,"more":false,"changes":[]}');
+    const res = pullResponse(page);
+    expect(res.headers.get("content-encoding")).toBeNull();
+    expect(res.headers.get("cache-control")).toBe("no-store");
+    expect(await res.text()).toBe(page.text);
+    expect(page.bytes()).toBe(page.bytes());
   });
 });

@@ -11,9 +11,8 @@ export const dynamic = "force-dynamic";
 
 const Params = z.object({ bandId: z.string().min(1).max(64) });
 
-export const GET = route({ params: Params, query: PullQuerySchema }, async ({ actor, params, query, request }) => {
-  const body = await pullBody(await ready(), actor, params.bandId, query);
-  return pullResponse(body, request.headers.get("accept-encoding"));
+export const GET = route({ params: Params, query: PullQuerySchema }, async ({ actor, params, query }) => {
+  return pullResponse(await pullBody(await ready(), actor, params.bandId, query));
 });
 
 export const POST = route({ params: Params, body: PushBodySchema }, async ({ actor, params, body }) => {
