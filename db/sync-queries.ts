@@ -6,6 +6,7 @@ import "server-only";
 import type BetterSqlite3 from "better-sqlite3";
 import { CompiledQuery, type Kysely } from "kysely";
 import { sqliteHandle } from "./connection";
+import { engineOf, placeholders } from "./engine";
 import type { Database, Membership } from "./schema";
 
 const prepared = new WeakMap<BetterSqlite3.Database, Map<string, BetterSqlite3.Statement>>();
@@ -17,7 +18,8 @@ const prepared = new WeakMap<BetterSqlite3.Database, Map<string, BetterSqlite3.S
 async function all<T>(db: Kysely<Database>, sql: string, params: readonly unknown[], shape?: (row: unknown[]) => T): Promise<T[]> {
   const handle = sqliteHandle(db);
   if (!handle) {
-    const rows = (await db.executeQuery<T>(CompiledQuery.raw(sql, [...params]))).rows as T[];
+    // PostgreSQL (or any other dialect): the same SQL through Kysely, placeholders numbered for it.
+    const rows = (await db.executeQuery<T>(CompiledQuery.raw(placeholders(engineOf(db), sql), [...params]))).rows as T[];
     return shape ? rows.map((r) => shape(Object.values(r as object))) : rows;
   }
   let cache = prepared.get(handle);

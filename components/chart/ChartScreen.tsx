@@ -18,6 +18,7 @@ import { MarksPanel } from "@/components/marks/MarksPanel";
 import { useChartMarks } from "@/components/marks/useBarMarks";
 import { buildPerformance } from "./performance";
 import { useBoxSize } from "./useBoxSize";
+import { PlayerPanel } from "@/components/player";
 import { useChoices } from "./useChoices";
 
 export function ChartScreen() {
@@ -129,6 +130,7 @@ export function ChartScreen() {
         </section>
 
         <aside className="no-print flex min-w-0 flex-col gap-5" aria-label="Reading choices">
+          <PlayerPanel chart={chart} concertKey={choices.key} intro={choices.intro} tempo={choices.tempo} host={() => box?.querySelector<HTMLElement>('[data-testid="chart-page"]') ?? null} />
           <InstrumentPicker value={choices.instrument} onChange={choices.setInstrument} />
           <KeyPicker chartKey={chart.key} value={choices.key ?? chart.key} onChange={choices.setKey} />
           <IntroPicker
