@@ -4,6 +4,7 @@ import { ready } from "@/db";
 import { PullQuerySchema, PushBodySchema } from "@/lib/offline/protocol";
 import { route } from "@/lib/server/handler";
 import { pullChanges, pushMutations } from "@/lib/server/sync";
+import { announceApplied } from "@/lib/server/push-announce";
 
 export const dynamic = "force-dynamic";
 
@@ -19,6 +20,8 @@ export const GET = route({ params: Params, query: PullQuerySchema }, async ({ ac
 });
 
 export const POST = route({ params: Params, body: PushBodySchema }, async ({ actor, params, body }) => {
-  const out = await pushMutations(await ready(), actor, params.bandId, body.mutations);
+  const db = await ready();
+  const out = await pushMutations(db, actor, params.bandId, body.mutations);
+  announceApplied(db, actor, params.bandId, body.mutations, out.results);
   return Response.json(out, { headers: { "cache-control": "no-store" } });
 });
