@@ -17,6 +17,8 @@ import { gigWhen } from "./datetime";
 import { GigEditorHost } from "./GigEditor";
 import { SetTunes, type TuneInfo } from "./SetTunes";
 import { SharePanel } from "./SharePanel";
+import { PushPrompt } from "@/components/push/PushPrompt";
+import { ReadinessPanel } from "@/components/readiness/ReadinessPanel";
 
 function plain(e: SetlistEntry): SetlistEntry {
   return { id: e.id, chartId: e.chartId, setNumber: e.setNumber, position: e.position, key: e.key, tempo: e.tempo, intro: e.intro, ending: e.ending, soloOrder: e.soloOrder, notes: e.notes };
@@ -32,7 +34,7 @@ export function GigScreen() {
   const [instrument, setInstrument] = useState<string | null>(null);
   const part = instrument ?? membership?.instrument ?? "concert";
   const entries = useMemo(() => (loaded?.entries ?? []).map((e) => plain({ ...e, ending: e.ending as SetlistEntry["ending"] })), [loaded]);
-  const tunes = useMemo(() => new Map<string, TuneInfo>((charts ?? []).map((c) => [c.id, { title: c.title, chart: c.body }])), [charts]);
+  const tunes = useMemo(() => new Map<string, TuneInfo>((charts ?? []).map((c) => [c.id, { title: c.title, chart: c.body, changed: c.unseen }])), [charts]);
 
   if (!bandId || !setlistId) return null;
   if (loaded === undefined || charts === undefined || membership === undefined) {
@@ -78,6 +80,8 @@ export function GigScreen() {
         {!editable && setlist.notes ? <p className="mt-2">{setlist.notes}</p> : null}
       </div>
 
+      <PushPrompt context="setlist" />
+      {editable ? <div className="mb-4"><ReadinessPanel bandId={bandId} setlistId={setlist.id} canNudge={membership?.role === "leader"} /></div> : null}
       <div className="mb-6 flex flex-wrap items-end gap-3 rounded-lg border border-ink-soft p-3">
         <SelectField label="Read as" value={part} onChange={(e) => setInstrument(e.target.value)} options={INSTRUMENT_OPTIONS} className="min-w-64" data-testid="play-instrument" />
         <LinkButton href={`${here}/play?instrument=${encodeURIComponent(part)}`} data-testid="play-set">Play this set</LinkButton>
