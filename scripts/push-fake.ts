@@ -161,3 +161,9 @@ export async function startPushFake({ port = 2528 }: { port?: number } = {}): Pr
     close: () => new Promise<void>((resolve) => server.close(() => resolve())),
   };
 }
+
+// `tsx scripts/push-fake.ts`: run it alone (the bench starts it in its own process this way).
+if (process.argv[1] && import.meta.url === (await import("node:url")).pathToFileURL(process.argv[1]).href) {
+  const fake = await startPushFake({ port: Number(process.env.PUSH_FAKE_PORT ?? 2528) });
+  console.log(`push fake on ${fake.origin}, received pushes at ${fake.origin}/messages`);
+}

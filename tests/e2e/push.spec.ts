@@ -68,7 +68,7 @@ test.describe("pushed updates and readiness", () => {
     await player.close();
 
     // The leader moves the tempo and changes bar 6 of a tune on tonight's set.
-    const revision = await editChart(leader, TIDEWATER, (t) => t.replace("| Em7 | A7 | Am7 | D7 |\nB:", "| Em7 | Eb7 | Am7 | D7 |\nB:"), 144);
+    const revision = await editChart(leader, TIDEWATER, (t) => t.replace("tempo: 138", "tempo: 144").replace("| Em7 | A7 | Am7 | D7 |\nB:", "| Em7 | Eb7 | Am7 | D7 |\nB:"), 144);
     await expect.poll(async () => (await leader.getByTestId("readiness").getAttribute("data-ready")) ?? "", { timeout: 30_000 }).not.toBe("");
     await leader.getByRole("button", { name: "Refresh" }).click();
     await expect(priyaRow).toHaveAttribute("data-ready", "false", { timeout: 20_000 });
