@@ -9,7 +9,7 @@ export function StageChanges({ chartId, instrument, tonightKey }: { chartId: str
   const [closed, setClosed] = useState<string | null>(null);
   if (!chartId || !since || closed === `${chartId}:${since.to}`) return null;
   return (
-    <div className="fixed left-2 right-2 top-14 z-30 mx-auto max-w-xl">
+    <div className="fixed left-2 right-2 top-14 z-[60] mx-auto max-w-xl">
       <ChangeSummary chartId={chartId} instrument={instrument} tonightKey={tonightKey} stage />
       <button type="button" className="absolute right-2 top-2 rounded border border-amber-300/60 px-2 text-sm text-amber-100" onClick={() => setClosed(`${chartId}:${since.to}`)} data-testid="change-summary-close">
         Close

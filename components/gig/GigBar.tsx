@@ -30,7 +30,7 @@ export function GigBar({ gig, tunes, at, isLeader, members }: Props) {
       ) : null}
       {!gig.canCall ? (
         <button type="button" className="pp-bar-button" aria-pressed={gig.following} onClick={() => gig.setFollowing(!gig.following)} data-testid="follow-toggle">
-          {gig.following ? "Following" : "Follow calls"}
+          {gig.following ? "Following" : "Follow"}
         </button>
       ) : null}
       <button type="button" className="pp-bar-button" aria-expanded={open} aria-controls="pp-gig-tunes" onClick={() => setOpen(!open)} data-testid="tune-list-toggle">

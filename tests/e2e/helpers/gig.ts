@@ -24,10 +24,10 @@ export function origin(page: Page): Record<string, string> {
 }
 
 /** Signs in on a fresh page and waits until the service worker controls it and the book is here. */
-export async function syncedPage(context: BrowserContext, email: string, password: string, path = band): Promise<Page> {
+export async function syncedPage(context: BrowserContext, email: string, password: string): Promise<Page> {
   const page = await context.newPage();
-  await signIn(page, email, password, path);
-  await page.goto(path);
+  await signIn(page, email, password, band);
+  await page.goto(band);
   await page.evaluate(async () => {
     await navigator.serviceWorker.ready;
   });
