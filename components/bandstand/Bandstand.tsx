@@ -8,7 +8,8 @@ import type { BarMark } from "@/lib/setlist/marks";
 import { useOnline } from "@/lib/offline/hooks";
 import { PagedChart, type PagedChartControls } from "@/components/chart/PagedChart";
 import { buildPerformance } from "@/components/chart/performance";
-import { introInWords } from "@/lib/setlist";
+import { introInWords, type EndingChoice } from "@/lib/setlist";
+import { PlayerPanel } from "@/components/player";
 import { cx } from "@/components/ui/cx";
 import { saveReadingSettings, useReadingSettings, type Theme } from "./settings";
 import { usePedalKeys } from "./usePedalKeys";
@@ -31,6 +32,8 @@ export interface BandstandTune {
   introText?: string;
   /** The reader's personal marks on this chart, keyed by `${section}:${bar}`. */
   marks?: ReadonlyMap<string, BarMark>;
+  /** Tonight's ending from the set list, for playback. */
+  ending?: EndingChoice | null;
 }
 
 export interface BandstandProps {
@@ -60,6 +63,7 @@ function introWords(tune: BandstandTune, ownIntroBars: number | null): string {
   if (tune.intro) return introInWords(tune.intro);
   return tune.intro === undefined && ownIntroBars ? `the tune's own, ${ownIntroBars} bars` : "none";
 }
+const stagePage = () => document.querySelector<HTMLElement>('.pp-bandstand-stage [data-testid="chart-page"]');
 const THEME_CLASS: Record<Theme, string> = { stage: "pp-theme-stage", ember: "pp-theme-ember" };
 
 export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exitHref, onTuneChange, following, gigControls }: BandstandProps) {
@@ -201,6 +205,9 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
           <span className="pp-bar-next" data-testid="next-up">
             {tune.next}
           </span>
+        ) : null}
+        {tune ? (
+          <PlayerPanel key={index} variant="stage" chart={tune.chart} concertKey={tune.key} intro={tune.intro} ending={tune.ending} host={stagePage} turnTo={(p) => controls.current?.goToPage(p)} />
         ) : null}
         <span ref={counter} className="pp-bar-counter" data-testid="page-counter" aria-hidden="true">
           1 / 1

@@ -19,6 +19,7 @@ import { MarksPanel } from "@/components/marks/MarksPanel";
 import { useChartMarks } from "@/components/marks/useBarMarks";
 import { buildPerformance } from "./performance";
 import { useBoxSize } from "./useBoxSize";
+import { PlayerPanel } from "@/components/player";
 import { useChoices } from "./useChoices";
 
 export function ChartScreen() {
@@ -131,6 +132,7 @@ export function ChartScreen() {
 
         <aside className="no-print flex min-w-0 flex-col gap-5" aria-label="Reading choices">
           <ChangeSummary chartId={chartId} instrument={choices.instrument} tonightKey={choices.key} />
+          <PlayerPanel chart={chart} concertKey={choices.key} intro={choices.intro} tempo={choices.tempo} host={() => box?.querySelector<HTMLElement>('[data-testid="chart-page"]') ?? null} />
           <InstrumentPicker value={choices.instrument} onChange={choices.setInstrument} />
           <KeyPicker chartKey={chart.key} value={choices.key ?? chart.key} onChange={choices.setKey} />
           <IntroPicker

@@ -1,6 +1,7 @@
 import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
 import { announce } from "@/lib/server/push-announce";
+import { SETLIST_BODY_BYTES } from "@/lib/server/request-guard";
 import { deleteSetlist, getSetlist, updateSetlist } from "@/lib/server/setlists";
 import { SetlistUpdateSchema } from "@/lib/setlist";
 import { SetlistParams } from "../params";
@@ -9,7 +10,7 @@ export const GET = route({ params: SetlistParams }, async ({ actor, params }) =>
   setlist: await getSetlist(await ready(), actor, params.bandId, params.setlistId),
 }));
 
-export const PUT = route({ params: SetlistParams, body: SetlistUpdateSchema }, async ({ actor, params, body }) => {
+export const PUT = route({ params: SetlistParams, body: SetlistUpdateSchema, maxBytes: SETLIST_BODY_BYTES }, async ({ actor, params, body }) => {
   const db = await ready();
   const setlist = await updateSetlist(db, actor, params.bandId, params.setlistId, body);
   announce(db, { bandId: params.bandId, authorId: actor?.userId ?? null, kind: "setlist", setlistId: params.setlistId });

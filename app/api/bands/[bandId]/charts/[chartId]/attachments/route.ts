@@ -10,7 +10,7 @@ export const GET = route({ params: ChartParams }, async ({ actor, params }) => (
 }));
 
 // Multipart field "file": a PDF, PNG or JPEG part of the chart.
-export const POST = route({ params: ChartParams }, async ({ actor, params, request }) => {
+export const POST = route({ params: ChartParams, rawBody: true }, async ({ actor, params, request }) => {
   const db = await ready();
   const attachment = await uploadAttachmentRequest(db, actor, params.bandId, params.chartId, request);
   announce(db, { bandId: params.bandId, authorId: actor?.userId ?? null, kind: "part", chartIds: [params.chartId] });
