@@ -282,13 +282,13 @@ export interface Database {
   login_attempts: LoginAttemptsTable;
   sign_in_tokens: SignInTokensTable;
   band_digests: BandDigestsTable;
-  rate_limits: RateLimitsTable;
-  ended_sessions: EndedSessionsTable;
   push_keys: PushKeysTable;
   push_subscriptions: PushSubscriptionsTable;
   device_reports: DeviceReportsTable;
   gig_calls: GigCallsTable;
   gig_callers: GigCallersTable;
+  rate_limits: RateLimitsTable;
+  ended_sessions: EndedSessionsTable;
 }
 
 /** rate-limiter-flexible's rows (its own layout); expire is epoch milliseconds. */

@@ -3,7 +3,7 @@
 // Then a gig followed on two devices: the leader calls a tune, the follower is on it within a second.
 import { expect, test, type CDPSession, type Page } from "@playwright/test";
 import { DEMO_BAND_ID } from "./helpers/demo";
-import { account, band, editChart, fakeSubscriber, LANTERNFISH, makeGig, origin, pushesFor, shot, syncedPage, TIDEWATER } from "./helpers/same-page";
+import { account, band, editChart, fakeSubscriber, LANTERNFISH, makeGig, origin, pushesFor, shot, syncedPage, TIDEWATER } from "./helpers/push-gig";
 
 /** The worker's registration id, through the DevTools protocol (see NOTES.md: push without a push service). */
 async function registrationId(cdp: CDPSession, scope: string): Promise<string> {

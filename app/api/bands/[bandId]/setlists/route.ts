@@ -1,7 +1,7 @@
 import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
-import { SETLIST_BODY_BYTES } from "@/lib/server/request-guard";
 import { announce } from "@/lib/server/push-announce";
+import { SETLIST_BODY_BYTES } from "@/lib/server/request-guard";
 import { createSetlist, listSetlists } from "@/lib/server/setlists";
 import { SetlistCreateSchema } from "@/lib/setlist";
 import { BandParams } from "@/lib/validation/band";

@@ -2,8 +2,8 @@ import { z } from "zod";
 import { ready } from "@/db";
 import { deleteChart, getChart, updateChart } from "@/lib/server/charts";
 import { route } from "@/lib/server/handler";
-import { CHART_BODY_BYTES } from "@/lib/server/request-guard";
 import { announce } from "@/lib/server/push-announce";
+import { CHART_BODY_BYTES } from "@/lib/server/request-guard";
 import { ChartParams } from "@/lib/validation/band";
 import { ChartUpdateSchema } from "@/lib/validation/chart-input";
 

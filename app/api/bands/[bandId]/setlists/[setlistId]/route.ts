@@ -1,7 +1,7 @@
 import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
-import { SETLIST_BODY_BYTES } from "@/lib/server/request-guard";
 import { announce } from "@/lib/server/push-announce";
+import { SETLIST_BODY_BYTES } from "@/lib/server/request-guard";
 import { deleteSetlist, getSetlist, updateSetlist } from "@/lib/server/setlists";
 import { SetlistUpdateSchema } from "@/lib/setlist";
 import { SetlistParams } from "../params";
