@@ -10,6 +10,7 @@ import path from "node:path";
 import { pathToFileURL } from "node:url";
 import { databasePath, migrateToLatest, openDatabase } from "../db/connection";
 import { demoAccountsTable, seedDemo, DEMO_BAND_ID } from "../db/seed";
+import { removeStaleUploads } from "../lib/server/stale-uploads";
 import { startMailFake } from "./mail-fake";
 import { startPushFake } from "./push-fake";
 
@@ -127,6 +128,8 @@ export async function runStart(flags: StartFlags): Promise<void> {
   if (process.env.MAIL_FAKE === "1") process.env.MAIL_VIEW_KEY ??= randomBytes(18).toString("base64url");
   if (flags.fresh) removeFresh();
   await prepareDatabase(flags);
+  const stale = removeStaleUploads(path.resolve(root, process.env.DATA_DIR ?? "data"));
+  if (stale) console.log(`removed ${stale} unfinished upload file(s) left by an earlier stop`);
   const fakes = await startFakes();
 
   const nextBin = path.join(root, "node_modules", ".bin", "next");

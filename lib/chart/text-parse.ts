@@ -56,6 +56,25 @@ interface PendingSection {
   lastLine: { bars: PendingBar[]; hasMelody: boolean } | null;
 }
 
+// A chart repeats a handful of chords many times; reading each spelling once keeps a long text
+// cheap (chord reading is the costliest step per word). Bounded, so it cannot grow without end.
+const chordCache = new Map<string, string | ChordSymbolError>();
+function readChordSymbol(text: string): string {
+  let hit = chordCache.get(text);
+  if (hit === undefined) {
+    try {
+      hit = formatChord(parseChord(text));
+    } catch (e) {
+      if (!(e instanceof ChordSymbolError)) throw e;
+      hit = e;
+    }
+    if (chordCache.size >= 2_000) chordCache.clear();
+    chordCache.set(text, hit);
+  }
+  if (hit instanceof ChordSymbolError) throw hit;
+  return hit;
+}
+
 /** `Pickup:` alone (or with bars after it) stays a section name, as it always read; `pickup: 1 beat` is the field. */
 function isField(name: string, rest: string): boolean {
   if (!(METADATA_FIELDS as readonly string[]).includes(name)) return false;
@@ -96,7 +115,7 @@ function buildBar(tok: Extract<BarToken, { kind: "bar" }>, meter: Meter, line: n
     }
     let symbol: string;
     try {
-      symbol = formatChord(parseChord(w.text));
+      symbol = readChordSymbol(w.text);
     } catch (e) {
       if (e instanceof ChordSymbolError) throw new ChartTextError(line, w.column, e.message);
       throw e;

@@ -41,9 +41,28 @@ function safeCodePoint(cp: number, fallback: string): string {
   return Number.isFinite(cp) && cp > 0 && cp <= 0x10ffff ? String.fromCodePoint(cp) : fallback;
 }
 
+/**
+ * Where the root element starts: the prolog is read whole, however long its comments are (a fixed
+ * window let a DOCTYPE hide behind a long comment). One pass over the text.
+ */
+export function prologEnd(text: string): number {
+  let i = 0;
+  for (;;) {
+    const lt = text.indexOf("<", i);
+    if (lt < 0) return text.length;
+    const close = text.startsWith("<!--", lt) ? "-->" : text.startsWith("<?", lt) ? "?>" : null;
+    if (close) {
+      const end = text.indexOf(close, lt + 2);
+      if (end < 0) return text.length;
+      i = end + close.length;
+    } else if (text.startsWith("<!", lt)) i = lt + 2; // DOCTYPE and its internal subset
+    else return lt;
+  }
+}
+
 /** Refuses entity declarations anywhere before the root element. */
 export function assertNoEntityDeclarations(text: string): void {
-  const head = text.slice(0, Math.min(text.length, 200_000));
+  const head = text.slice(0, prologEnd(text));
   const doctype = /<!DOCTYPE/i.exec(head);
   if (!doctype) return;
   if (/<!ENTITY/i.test(text.slice(doctype.index))) {

@@ -20,16 +20,20 @@ const PULL_ENTITIES = new Set(["chart", "setlist", "annotation", "attachment"]);
 interface Visible {
   setlists: Set<string>;
   charts: Set<string>;
+  /** Set lists ever shared with this sub: the only ones a delete may name (others' ids stay unknown). */
+  onceSetlists: Set<string>;
 }
 
 async function visibleToSub(db: Kysely<Database>, bandId: string, userId: string, now: Date): Promise<Visible> {
   const setlists = new Set(await sharedSetlistIds(db, bandId, userId, now));
+  const ever = await db.selectFrom("shares").select("setlist_id").where("band_id", "=", bandId).where("user_id", "=", userId).execute();
+  const onceSetlists = new Set([...setlists, ...ever.map((s) => s.setlist_id)]);
   const charts = new Set<string>();
   if (setlists.size > 0) {
     const entries = await db.selectFrom("setlist_entries").select("chart_id").where("setlist_id", "in", [...setlists]).execute();
     for (const e of entries) charts.add(e.chart_id);
   }
-  return { setlists, charts };
+  return { setlists, charts, onceSetlists };
 }
 
 function scopeOf(m: Membership, visible: Visible | null): string {
@@ -52,8 +56,7 @@ async function subRetractions(db: Kysely<Database>, bandId: string, visible: Vis
   const out: { key: string; json: string }[] = [];
   const charts = await db.selectFrom("charts").select("id").where("band_id", "=", bandId).execute();
   for (const c of charts) if (!visible.charts.has(c.id)) out.push({ key: `chart:${c.id}`, json: deleteJson("chart", c.id) });
-  const lists = await db.selectFrom("setlists").select("id").where("band_id", "=", bandId).execute();
-  for (const l of lists) if (!visible.setlists.has(l.id)) out.push({ key: `setlist:${l.id}`, json: deleteJson("setlist", l.id) });
+  for (const id of visible.onceSetlists) if (!visible.setlists.has(id)) out.push({ key: `setlist:${id}`, json: deleteJson("setlist", id) });
   return out;
 }
 
@@ -134,6 +137,11 @@ async function buildPage(db: Kysely<Database>, m: Membership, bandId: string, ba
     if (visible && r.entity === "chart" && !visible.charts.has(r.entity_id)) {
       // A change addressed to this sub about a chart they can no longer see: take it off the device.
       if (r.user_id === userId) retract.add(r.seq);
+      continue;
+    }
+    if (visible && r.entity === "setlist" && !visible.setlists.has(r.entity_id)) {
+      // Another set list of the band: a sub learns nothing of it, not even its id, unless it was once theirs.
+      if (visible.onceSetlists.has(r.entity_id)) retract.add(r.seq);
       continue;
     }
     ids[r.entity]!.push(r.entity_id);
