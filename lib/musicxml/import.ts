@@ -21,8 +21,13 @@ export interface ImportReport {
   sections: string[];
   /** Plain sentences: what was read. */
   read: string[];
-  /** Plain sentences: what was left out or changed, with counts and bar numbers. */
+  /** Plain sentences: what was read but not kept, with counts and bar numbers. */
   skipped: string[];
+  /**
+   * Plain sentences: bars and chords changed or left out so the chart can be written as chart text
+   * (only with `fitChartText`), each naming the bars and the chords.
+   */
+  changed: string[];
 }
 
 export interface ImportOptions {
@@ -210,7 +215,8 @@ export function importMusicXml(root: XNode, opts: ImportOptions = {}): ImportRes
   const title = titleOf(root, opts.fileName);
   const tempo = tempoMark ? tempoInMeterBeats(tempoMark.quarters, meter.unit) : soundTempo ? tempoInMeterBeats(soundTempo, meter.unit) : null;
   const chart: Chart = { title, composer: composer.slice(0, 200), key: keyName, meter: meter as Chart["meter"], tempo, feel, intro, sections };
-  if (opts.fitChartText) fitToChartText(chart, barNumbers, skipped);
+  const changed = new Skipped();
+  if (opts.fitChartText) fitToChartText(chart, barNumbers, changed);
 
   read.unshift(...headLines(chart, melodyPart, first, mapOf));
   if (tempoMark && tempo !== null) {
@@ -234,7 +240,7 @@ export function importMusicXml(root: XNode, opts: ImportOptions = {}): ImportRes
     chart,
     report: {
       title, partName: melodyPart.name, parts: parts.length, measures: all.length, chords, melodyNotes,
-      sections: sections.map((s) => s.label), read, skipped: skipped.lines(),
+      sections: sections.map((s) => s.label), read, skipped: skipped.lines(), changed: changed.lines(),
     },
   };
 }
