@@ -10,7 +10,9 @@ import type { Skipped } from "./report";
 /** Chords on whole beats, at most one a beat; the ones that do not fit are named. */
 function fitChords(bar: Bar, beats: number, number: string, skipped: Skipped): void {
   const byBeat = new Map<number, ChordSlot>();
-  for (const c of bar.chords) {
+  // chords already on a beat take it first; one between beats goes to the nearest beat still free
+  const onBeatFirst = [...bar.chords].sort((a, b) => Math.abs(a.beat - Math.round(a.beat)) - Math.abs(b.beat - Math.round(b.beat)));
+  for (const c of onBeatFirst) {
     const beat = Math.min(beats - 1, Math.round(c.beat));
     const taken = byBeat.get(beat);
     if (taken) {

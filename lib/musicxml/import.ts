@@ -21,8 +21,13 @@ export interface ImportReport {
   sections: string[];
   /** Plain sentences: what was read. */
   read: string[];
-  /** Plain sentences: what was left out or changed, with counts and bar numbers. */
+  /** Plain sentences: what was read but not kept, with counts and bar numbers. */
   skipped: string[];
+  /**
+   * Plain sentences: bars and chords changed or left out so the chart can be written as chart text
+   * (only with `fitChartText`), each naming the bars and the chords.
+   */
+  changed: string[];
 }
 
 export interface ImportOptions {
@@ -146,7 +151,7 @@ export function importMusicXml(root: XNode, opts: ImportOptions = {}): ImportRes
       const prevMap = mapOf(prev);
       if (!sameTransposition(m.transpose, prev.transpose)) read.push(`Bar ${m.number}: the part changes transposition (to ${m.transpose?.diatonic ?? 0}/${m.transpose?.chromatic ?? 0}); followed, still read in concert pitch`);
       if (formatKey(map.concert) !== formatKey(prevMap.concert)) {
-        if (map.concert.minor !== prevMap.concert.minor && fifthsOfKey(map.concert) + (map.concert.minor ? 3 : 0) === fifthsOfKey(prevMap.concert) + (prevMap.concert.minor ? 3 : 0)) {
+        if (map.concert.minor !== prevMap.concert.minor && fifthsOfKey(map.concert) === fifthsOfKey(prevMap.concert)) {
           skipped.add("changes of mode only (major ⇄ minor, same signature); the chart keeps the opening key", m.number);
         } else skipped.add("key changes; the chart keeps the opening key", m.number);
       }
@@ -179,15 +184,17 @@ export function importMusicXml(root: XNode, opts: ImportOptions = {}): ImportRes
       if (!concertH.bass) delete concertH.bass;
       return readSymbol(concertH, h, bar);
     };
-    const slots = cm ? chordSlots(cm, barBeats, quarterPerBeat, toSymbol, skipped) : [];
+    const fullQuarters = barBeats * quarterPerBeat;
+    // a short first measure is a pickup when the file says so (implicit) or the full bars follow it
+    const pickup = i === 0 && m.length > 0 && m.length < fullQuarters - 1e-6 && (m.implicit || melodyPart.measures.length > 1) ? round(m.length / quarterPerBeat) : undefined;
+    const slots = cm ? chordSlots(cm, pickup ?? barBeats, quarterPerBeat, toSymbol, skipped) : [];
     const bar: Bar = { chords: slots.slice(0, 16), simile, repeatStart: m.repeatStart, repeatEnd: m.repeatEnd, ending };
     if (slots.length > 16) skipped.add("chord symbols beyond 16 in one bar", m.number, slots.length - 16);
     if (m.repeatTimes) bar.repeatTimes = m.repeatTimes;
     if (hasPitches && m.notes.length) bar.melody = melodyOf(m, map.pitch, skipped);
-    const fullQuarters = barBeats * quarterPerBeat;
-    if (i === 0 && m.length > 0 && (m.implicit || m.length < fullQuarters - 1e-6) && m.length < fullQuarters) {
-      bar.pickup = round(m.length / quarterPerBeat);
-      read.push(`Bar ${m.number}: a pickup of ${bar.pickup} beat${bar.pickup === 1 ? "" : "s"}`);
+    if (pickup) {
+      bar.pickup = pickup;
+      read.push(`Bar ${m.number}: a pickup of ${pickup} beat${pickup === 1 ? "" : "s"}`);
     }
     if (simile) settleSimile(bar, lastPlain, m.number, skipped);
     else lastPlain = bar;
@@ -208,7 +215,8 @@ export function importMusicXml(root: XNode, opts: ImportOptions = {}): ImportRes
   const title = titleOf(root, opts.fileName);
   const tempo = tempoMark ? tempoInMeterBeats(tempoMark.quarters, meter.unit) : soundTempo ? tempoInMeterBeats(soundTempo, meter.unit) : null;
   const chart: Chart = { title, composer: composer.slice(0, 200), key: keyName, meter: meter as Chart["meter"], tempo, feel, intro, sections };
-  if (opts.fitChartText) fitToChartText(chart, barNumbers, skipped);
+  const changed = new Skipped();
+  if (opts.fitChartText) fitToChartText(chart, barNumbers, changed);
 
   read.unshift(...headLines(chart, melodyPart, first, mapOf));
   if (tempoMark && tempo !== null) {
@@ -221,17 +229,18 @@ export function importMusicXml(root: XNode, opts: ImportOptions = {}): ImportRes
   const all = [...(intro ? [intro] : []), ...sections].flatMap((s) => s.bars);
   const chords = all.reduce((n, b) => n + b.chords.length, 0);
   const melodyNotes = all.reduce((n, b) => n + (b.melody?.filter((x) => x.pitch).length ?? 0), 0);
-  read.push(`${all.length} bars in ${sections.length} section${sections.length === 1 ? "" : "s"}: ${sections.map((s) => s.label).join(", ")}${intro ? " (and an intro)" : ""}`);
+  const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;
+  read.push(`${plural(all.length, "bar")} in ${sections.length} section${sections.length === 1 ? "" : "s"}: ${sections.map((s) => s.label).join(", ")}${intro ? " (and an intro)" : ""}`);
   read.push(`${chords} chord symbol${chords === 1 ? "" : "s"}${chordPart !== melodyPart ? ` from part "${chordPart.name}"` : ""}`);
   const repeats = all.filter((b) => b.repeatEnd).length;
   const endings = new Set(all.filter((b) => b.ending !== null).map((b) => b.ending)).size;
   if (repeats) read.push(`${repeats} repeat${repeats === 1 ? "" : "s"}${endings ? `, ${endings} numbered endings` : ""}`);
-  read.push(hasPitches ? `Melody: ${melodyNotes} notes from part "${melodyPart.name}"` : "No melody notes (chords only)");
+  read.push(hasPitches ? `Melody: ${plural(melodyNotes, "note")} from part "${melodyPart.name}"` : "No melody notes (chords only)");
   return {
     chart,
     report: {
       title, partName: melodyPart.name, parts: parts.length, measures: all.length, chords, melodyNotes,
-      sections: sections.map((s) => s.label), read, skipped: skipped.lines(),
+      sections: sections.map((s) => s.label), read, skipped: skipped.lines(), changed: changed.lines(),
     },
   };
 }

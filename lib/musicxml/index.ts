@@ -6,6 +6,7 @@ import { MAX_MUSICXML_BYTES, MusicXmlError, parseXml } from "./xml";
 
 export { exportMusicXml, exportBars, chartBars, type ExportOptions, type ExportBar } from "./export";
 export { partExportOptions } from "./part";
+export { exportArrangement } from "./performance";
 export { exportMxl, containerXml, MXL_MIME } from "./mxl-write";
 export { harmonyToSymbol, symbolToHarmony, KIND_VALUES, type Harmony, type KindValue } from "./kinds";
 export { MusicXmlError, MAX_MUSICXML_BYTES } from "./xml";

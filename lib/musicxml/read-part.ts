@@ -133,6 +133,8 @@ function readBarline(el: XNode, w: Walk, last: boolean): void {
 function readNote(el: XNode, w: Walk): void {
   const { rm, skipped } = w;
   const dur = numberOf(el, "duration") ?? 0;
+  const lyrics = children(el, "lyric").length;
+  if (lyrics) skipped.add("lyrics", rm.number, lyrics);
   if (child(el, "grace")) return skipped.add("grace notes", rm.number);
   if (child(el, "chord")) return skipped.add("notes stacked under the melody (chords in the staff)", rm.number);
   const voice = textOf(el, "voice") ?? "1";
@@ -148,8 +150,6 @@ function readNote(el: XNode, w: Walk): void {
   w.pos += dur;
   if (voice !== w.melodyVoice || child(el, "cue")) return skipped.add("notes in other voices", rm.number);
   rm.length = Math.max(rm.length, w.pos / w.divisions);
-  const lyrics = children(el, "lyric").length;
-  if (lyrics) skipped.add("lyrics", rm.number, lyrics);
   const notations = child(el, "notations");
   if (notations?.children.some((c) => c.name !== "tied")) skipped.add("articulations, slurs and other note marks", rm.number);
   const pitchEl = child(el, "pitch");

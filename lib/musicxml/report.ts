@@ -35,7 +35,8 @@ export function barList(bars: string[]): string {
   for (let i = 0; i < bars.length; ) {
     let j = i;
     while (j + 1 < bars.length && Number(bars[j + 1]) === Number(bars[j]) + 1) j++;
-    parts.push(j - i >= 2 ? `${bars[i]}–${bars[j]}` : bars.slice(i, j + 1).join(", "));
+    if (j - i >= 2) parts.push(`${bars[i]}–${bars[j]}`);
+    else parts.push(...bars.slice(i, j + 1));
     i = j + 1;
   }
   const last = parts.pop();

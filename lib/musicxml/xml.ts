@@ -2,6 +2,7 @@
 // entities is refused outright (billion laughs, external entities), and nothing is ever fetched.
 // Only the five predefined entities and numeric character references are decoded, by us.
 import { XMLParser } from "fast-xml-parser";
+import { assertWellFormed } from "./xml-errors";
 
 export const MAX_MUSICXML_BYTES = 5 * 1024 * 1024;
 
@@ -102,6 +103,7 @@ export function parseXml(text: string): XNode {
     throw new MusicXmlError("too_large", "This MusicXML file is larger than 5 MB, the most Pedalpoint reads.");
   }
   assertNoEntityDeclarations(text);
+  assertWellFormed(text);
   const parser = new XMLParser({
     preserveOrder: true,
     ignoreAttributes: false,
