@@ -2,7 +2,7 @@
 //   --fresh  delete the database file (and DATA_DIR) first      --seed  add the demo band
 //   --dev    run `next dev` instead of `next start`
 // Env: PORT (3000), DATABASE_PATH, DATA_DIR, MAIL_FAKE=1 (SMTP_PORT, MAIL_FAKE_HTTP_PORT),
-//      PAYMENT_FAKE=1 (PAYMENT_FAKE_PORT), NEXTAUTH_URL, NEXTAUTH_SECRET.
+//      PAYMENT_FAKE=1 (PAYMENT_FAKE_PORT), PUSH_FAKE=1 (PUSH_FAKE_PORT), NEXTAUTH_URL, NEXTAUTH_SECRET.
 import { spawn, type ChildProcess } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import fs from "node:fs";
@@ -11,6 +11,7 @@ import { pathToFileURL } from "node:url";
 import { databasePath, migrateToLatest, openDatabase } from "../db/connection";
 import { demoAccountsTable, seedDemo, DEMO_BAND_ID } from "../db/seed";
 import { startMailFake } from "./mail-fake";
+import { startPushFake } from "./push-fake";
 
 export interface StartFlags {
   fresh?: boolean;
@@ -79,6 +80,14 @@ async function startFakes(): Promise<Closable[]> {
       console.warn("PAYMENT_FAKE=1 but scripts/payment-fake.ts is missing; payments are off");
     }
   }
+  if (process.env.PUSH_FAKE === "1") {
+    const push = await startPushFake({ port: Number(process.env.PUSH_FAKE_PORT ?? 2528) });
+    process.env.PUSH_FAKE_PORT = String(push.port);
+    // The one plain-http push endpoint the server will send to (lib/server/push-subscriptions.ts).
+    process.env.PUSH_FAKE_ORIGIN = push.origin;
+    console.log(`push fake on ${push.origin}, received pushes at ${push.origin}/messages`);
+    fakes.push({ name: "push fake", close: push.close });
+  }
   return fakes;
 }
 
@@ -100,7 +109,10 @@ function banner(url: string, seeded: boolean): void {
   if (seeded) {
     lines.push(`The demo band's library: ${url}/bands/${DEMO_BAND_ID}`, ``, `Demo accounts:`, demoAccountsTable());
   }
-  if (process.env.MAIL_FAKE === "1") lines.push(``, `Captured mail: ${url}/dev/mail`);
+  if (process.env.MAIL_FAKE === "1") {
+    // The key opens the whole captured box (sign-in links included): it is printed here only.
+    lines.push(``, `Captured mail (all of it, keep this address to yourself): ${url}/dev/mail?key=${process.env.MAIL_VIEW_KEY}`);
+  }
   console.log(lines.join("\n") + "\n");
 }
 
@@ -112,6 +124,7 @@ export async function runStart(flags: StartFlags): Promise<void> {
     process.env.NEXTAUTH_SECRET = randomBytes(32).toString("base64url");
     console.warn("NEXTAUTH_SECRET is not set: using a random one, so sign-ins end when the server restarts.");
   }
+  if (process.env.MAIL_FAKE === "1") process.env.MAIL_VIEW_KEY ??= randomBytes(18).toString("base64url");
   if (flags.fresh) removeFresh();
   await prepareDatabase(flags);
   const fakes = await startFakes();

@@ -1,6 +1,7 @@
 "use client";
 // The band's library: read from the local book (never straight from the network), so it looks and
 // works the same with and without signal. Search, sort and filters live in the address.
+import { JoinedPrompt } from "@/components/push/JoinedPrompt";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useCallback, useMemo } from "react";
 import { LinkButton } from "@/components/ui/Button";
@@ -8,6 +9,7 @@ import { Notice } from "@/components/ui/Notice";
 import { PageColumn } from "@/components/ui/Page";
 import { useBandCharts, useMembership, useMyBands } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
+import { ArchivedCharts } from "./ArchivedCharts";
 import { DigestButton } from "./DigestButton";
 import { LibraryControls } from "./LibraryControls";
 import { LibraryTable } from "./LibraryTable";
@@ -44,6 +46,7 @@ export function LibraryScreen() {
   if (!bandId) return null;
   return (
     <PageColumn wide>
+      <JoinedPrompt />
       <div className="mb-6 flex flex-wrap items-end justify-between gap-4">
         <div>
           <h1 className="text-2xl font-bold tracking-tight sm:text-3xl">Library</h1>
@@ -85,6 +88,7 @@ export function LibraryScreen() {
           <LibraryTable bandId={bandId} charts={shown} query={query} canEdit={canEdit} onSort={onSort} />
         )}
       </div>
+      {canEdit ? <ArchivedCharts bandId={bandId} /> : null}
     </PageColumn>
   );
 }

@@ -3,11 +3,12 @@
 // tonight's key, tempo and intro, in the reader's own instrument. Everything comes from this device.
 import { useSearchParams } from "next/navigation";
 import { useMemo } from "react";
-import { Bandstand, type BandstandTune } from "@/components/bandstand/Bandstand";
+import type { BandstandTune } from "@/components/bandstand/Bandstand";
+import { FollowedBandstand } from "@/components/gig/FollowedBandstand";
 import { Notice } from "@/components/ui/Notice";
 import { useBandRoute } from "@/lib/offline/route";
 import { isInstrumentId } from "@/lib/music/instruments";
-import { endingInWords, introInWords, playOrder, type SetlistEntry } from "@/lib/setlist";
+import { endingInWords, entryIntro, entryIntroInWords, playOrder, type SetlistEntry } from "@/lib/setlist";
 import { useBookCharts, useMyMembership, useSetlist } from "./data";
 import { useTuneMarks } from "@/components/marks/useBarMarks";
 
@@ -22,7 +23,7 @@ export function tuneHeading(e: SetlistEntry, title: string, chartKey: string, ch
     `Set ${e.setNumber} · ${e.position + 1}. ${title}`,
     `Key ${prettyKey(e.key ?? chartKey)}`,
     tempo ? `♩ = ${tempo}` : "",
-    `Intro: ${introInWords(e.intro)}`,
+    `Intro: ${entryIntroInWords(e)}`,
     e.ending ? `End: ${endingInWords(e.ending)}` : "",
   ]
     .filter(Boolean)
@@ -53,11 +54,11 @@ export function PlaySet() {
           {
             chart: { ...c.body, tempo: e.tempo ?? c.body.tempo },
             key: e.key,
-            intro: e.intro ?? undefined,
+            intro: entryIntro(e),
             label: tuneHeading(e, c.title, c.body.key, c.body.tempo),
             next: nextTitle ? `Next: ${nextTitle}` : undefined,
             nextTitle,
-            introText: introInWords(e.intro),
+            introText: entryIntroInWords(e),
             marks: marks.get(e.chartId),
             ending: e.ending,
           },
@@ -76,5 +77,10 @@ export function PlaySet() {
       </Notice>
     );
   }
-  return <Bandstand tunes={tunes} instrument={instrument} start={Math.min(start, tunes.length - 1)} exitHref={exit} />;
+  // One gig entry per tune drawn (a chart missing on this device is skipped in both).
+  const gigEntries = order.flatMap((e) => {
+    const c = byId.get(e.chartId);
+    return c ? [{ id: e.id, chartId: e.chartId, title: c.title, key: e.key }] : [];
+  });
+  return <FollowedBandstand bandId={bandId} setlistId={setlistId} entries={gigEntries} tunes={tunes} instrument={instrument} start={Math.min(start, tunes.length - 1)} exitHref={exit} />;
 }

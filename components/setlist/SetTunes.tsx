@@ -17,12 +17,14 @@ import Link from "next/link";
 import { useState } from "react";
 import { Button } from "@/components/ui/Button";
 import type { Chart } from "@/lib/chart/model";
-import { endingInWords, introInWords, type SetlistEntry } from "@/lib/setlist";
+import { endingInWords, entryIntroInWords, formatTuneLength, tuneTiming, type SetlistEntry } from "@/lib/setlist";
 import { TuneArrangement } from "./TuneArrangement";
 
 export interface TuneInfo {
   title: string;
   chart: Chart | null;
+  /** Changed since this device last read it. */
+  changed?: boolean;
 }
 
 interface Props {
@@ -48,6 +50,7 @@ function Row({ entry, index, props }: { entry: SetlistEntry; index: number; prop
   const [open, setOpen] = useState(false);
   const tune = props.tunes.get(entry.chartId);
   const title = titleOf(props.tunes, entry);
+  const seconds = tune?.chart ? tuneTiming(tune.chart, entry).seconds : null;
   const move = (to: number) => props.onReorder(arrayMove(props.entries, index, to));
   return (
     <li
@@ -56,6 +59,7 @@ function Row({ entry, index, props }: { entry: SetlistEntry; index: number; prop
       className={`rounded-md border border-ink-soft bg-white p-3 ${isDragging ? "shadow-lg ring-2 ring-brass" : ""}`}
       data-testid="set-tune"
       data-title={title}
+      data-changed={tune?.changed ? "true" : undefined}
     >
       <div className="flex flex-wrap items-center gap-2">
         {props.editable ? (
@@ -72,11 +76,15 @@ function Row({ entry, index, props }: { entry: SetlistEntry; index: number; prop
         ) : null}
         <span className="w-6 text-right font-semibold tabular-nums text-ink-muted">{index + 1}.</span>
         <div className="min-w-40 flex-1">
-          <p className="font-semibold">{title}</p>
+          <p className="font-semibold">
+            {title}
+            {tune?.changed ? <span className="ml-2 text-sm font-normal text-brass-dark">changed since you read it</span> : null}
+          </p>
           <p className="text-sm text-ink-muted">
             Key {entry.key ?? tune?.chart?.key ?? "as written"}
-            {entry.tempo ? ` · ♩ = ${entry.tempo}` : ""} · Intro: {introInWords(entry.intro)} · Ending: {endingInWords(entry.ending)}
-            {entry.soloOrder ? ` · Solos: ${entry.soloOrder}` : ""}
+            {entry.tempo ? ` · ♩ = ${entry.tempo}` : ""} · Intro: {entryIntroInWords(entry)} · Ending: {endingInWords(entry.ending)}
+            {entry.soloOrder ? ` · Solos: ${entry.soloOrder}${entry.choruses > 1 ? ` (${entry.choruses} choruses each)` : ""}` : ""}
+            <span data-testid="tune-length">{seconds !== null ? ` · about ${formatTuneLength(seconds)}` : " · no tempo, length unknown"}</span>
           </p>
           {entry.notes ? <p className="text-sm">{entry.notes}</p> : null}
         </div>

@@ -9,6 +9,24 @@ import { METADATA_FIELDS, readField, type Field, type Meta } from "./text-fields
 
 export { ChartTextError, METADATA_FIELDS };
 
+// A real chart is a few hundred lines at most. Longer texts are refused before any parsing so one
+// paste or one sync push cannot buy seconds of CPU (the form's and the routes' zod limits agree).
+export const MAX_CHART_TEXT_CHARS = 50_000;
+export const MAX_CHART_TEXT_LINES = 5_000;
+
+/** Throws when the text is longer than a chart can be; costs at most one pass, stopping early. */
+export function assertChartTextSize(text: string): void {
+  if (text.length > MAX_CHART_TEXT_CHARS) {
+    throw new ChartTextError(1, 1, `The chart text is too long (${MAX_CHART_TEXT_CHARS.toLocaleString("en")} characters at most)`);
+  }
+  let lines = 1;
+  for (let at = text.indexOf("\n"); at >= 0; at = text.indexOf("\n", at + 1)) {
+    if (++lines > MAX_CHART_TEXT_LINES) {
+      throw new ChartTextError(MAX_CHART_TEXT_LINES + 1, 1, `The chart text has too many lines (${MAX_CHART_TEXT_LINES.toLocaleString("en")} at most)`);
+    }
+  }
+}
+
 // `Name:` starts a line; a colon right before `|` is a repeat end (`C7:|`) unless it is `Name:|:`.
 const HEADER_RE = /^(\s*)([A-Za-z][\w '’&.()\-]{0,60}?)\s*:(?!\|(?!:))(.*)$/;
 
@@ -36,6 +54,12 @@ interface PendingSection {
   bars: PendingBar[];
   /** Bars of the latest bar line, for a `melody:` line under it. */
   lastLine: { bars: PendingBar[]; hasMelody: boolean } | null;
+}
+
+/** `Pickup:` alone (or with bars after it) stays a section name, as it always read; `pickup: 1 beat` is the field. */
+function isField(name: string, rest: string): boolean {
+  if (!(METADATA_FIELDS as readonly string[]).includes(name)) return false;
+  return name !== "pickup" || (rest.trim() !== "" && !/^\s*[|[]/.test(rest));
 }
 
 function buildBar(tok: Extract<BarToken, { kind: "bar" }>, meter: Meter, line: number): Bar {
@@ -87,14 +111,17 @@ function buildBar(tok: Extract<BarToken, { kind: "bar" }>, meter: Meter, line: n
 function settleEndings(sec: PendingSection): void {
   let active: number | null = null;
   const runs: { n: number; last: PendingBar }[] = [];
+  // Which ending numbers occur, so each check is one look-up (a long section stays linear).
+  const numbers = new Set<number>();
   for (const p of sec.bars) {
     if (p.bar.repeatStart) active = null;
     if (p.endingStart !== null) {
       const n = p.endingStart;
-      if (n > 1 && !runs.some((r) => r.n === n - 1)) {
+      if (n > 1 && !numbers.has(n - 1)) {
         throw new ChartTextError(p.line, p.endingColumn, `Ending [${n} comes without an ending [${n - 1} before it in this section`);
       }
       active = n;
+      numbers.add(n);
       runs.push({ n, last: p });
     }
     p.bar.ending = active;
@@ -102,7 +129,7 @@ function settleEndings(sec: PendingSection): void {
     if (p.bar.repeatEnd || p.endingClose) active = null;
   }
   for (const r of runs) {
-    if (runs.some((o) => o.n === r.n + 1) && !r.last.bar.repeatEnd) {
+    if (numbers.has(r.n + 1) && !r.last.bar.repeatEnd) {
       throw new ChartTextError(r.last.line, r.last.column, `Ending [${r.n} must end with :| so the band goes back for the next time through`);
     }
   }
@@ -126,8 +153,9 @@ function readMelodyLine(text: string, offset: number, line: number, sec: Pending
   if (segments.length > targets.length) {
     throw new ChartTextError(line, segments[targets.length]!.column, `This melody line has ${segments.length} bars but the bar line above has ${targets.length}`);
   }
-  const need = barQuarters(meter);
   segments.forEach((seg, i) => {
+    const pickup = targets[i]!.bar.pickup;
+    const need = barQuarters(pickup ? { beats: pickup, unit: meter.unit } : meter);
     if (seg.text.trim() === "") return;
     const notes = [];
     let total = 0;
@@ -147,6 +175,7 @@ function readMelodyLine(text: string, offset: number, line: number, sec: Pending
 }
 
 export function parseChartText(text: string): Chart {
+  assertChartTextSize(text);
   const lines = text.replace(/\r\n?/g, "\n").split("\n").map(stripComment);
   const meta: Meta = {};
   const seen = new Map<Field, number>();
@@ -154,12 +183,19 @@ export function parseChartText(text: string): Chart {
     const m = HEADER_RE.exec(raw);
     if (!m) return;
     const name = m[2]!.trim().toLowerCase() as Field;
-    if (!(METADATA_FIELDS as readonly string[]).includes(name)) return;
+    if (!isField(name, m[3]!)) return;
     if (seen.has(name)) throw new ChartTextError(i + 1, m[1]!.length + 1, `${name} is given twice (first on line ${seen.get(name)})`);
     seen.set(name, i + 1);
     readField(name, m[3]!.trim(), i + 1, m[1]!.length + 1, meta);
   });
   const meter = meta.meter ?? { beats: 4, unit: 4 };
+  // The pickup is the first bar played: the Intro's when the chart has one, else the form's.
+  const introFirst = lines.some((l) => HEADER_RE.exec(l)?.[2]?.trim().toLowerCase() === "intro");
+  let pickupLeft = meta.pickup;
+  if (pickupLeft !== undefined && pickupLeft >= meter.beats) {
+    const line = seen.get("pickup") ?? 1;
+    throw new ChartTextError(line, 1, `A pickup is shorter than a bar: a ${meter.beats}/${meter.unit} bar has ${beatWords(meter.beats)}, so the pickup can have at most ${beatWords(meter.beats - 1)}`);
+  }
 
   const sections: PendingSection[] = [];
   let current: PendingSection | null = null;
@@ -176,7 +212,12 @@ export function parseChartText(text: string): Chart {
     const lineBars: PendingBar[] = [];
     for (const tok of scanBarLine(body, offset, line)) {
       if (tok.kind !== "bar") continue;
-      const bar = buildBar(tok, meter, line);
+      const pickup = pickupLeft !== undefined && current.bars.length === 0 && current.isIntro === introFirst ? pickupLeft : undefined;
+      const bar = buildBar(tok, pickup ? { beats: pickup, unit: meter.unit } : meter, line);
+      if (pickup) {
+        bar.pickup = pickup;
+        pickupLeft = undefined;
+      }
       const p: PendingBar = { bar, line, column: tok.column, endingStart: tok.ending, endingColumn: tok.endingColumn ?? tok.column, endingClose: tok.endingClose };
       if (bar.simile && current.bars.length === 0) throw new ChartTextError(line, tok.column, "% repeats the bar before, but this section has no bar before it");
       current.bars.push(p);
@@ -195,7 +236,7 @@ export function parseChartText(text: string): Chart {
       const column = m[1]!.length + 1;
       const rest = m[3]!;
       const restOffset = raw.length - rest.length;
-      if ((METADATA_FIELDS as readonly string[]).includes(lower)) return;
+      if (isField(lower, rest)) return;
       if (lower === "melody") return readMelodyLine(rest, restOffset, line, current, meter);
       if (rest.trim() !== "" && !/^\s*[|[]/.test(rest)) {
         throw new ChartTextError(line, column, `"${name}" is not a field we know (the fields are ${METADATA_FIELDS.join(", ")}); a section name stands alone on its line, like "B:"`);
