@@ -24,7 +24,7 @@ test.use({
 
 async function openChart(page: Page, query = "?instrument=bb") {
   await page.goto(chartUrl(query));
-  await expect(page.locator('[data-testid="chart-page"][data-drawn-all="true"]')).toBeAttached({ timeout: 30_000 });
+  await expect(page.locator('[data-testid="chart-page"][data-drawn-all="true"]')).toBeAttached({ timeout: 90_000 });
 }
 
 /** Records each change of data-playing-bar with its time, from inside the page. */
@@ -61,6 +61,8 @@ async function loopBars(page: Page, from: number, to: number) {
 }
 
 test.describe("hearing the arrangement", () => {
+  // Drawing the chart and starting the audio engine take a while on a busy 2-core machine.
+  test.describe.configure({ timeout: 180_000 });
   test.beforeEach(async ({ page }) => {
     const player = demoPlayer();
     await signIn(page, player.email, player.password, `/bands/${DEMO_BAND_ID}`);
