@@ -3,8 +3,8 @@
 // one animation-frame loop that marks the bar being played (and turns the page when asked), and
 // stops when the tune ends, the tune changes or the view closes. One tune plays at a time.
 import { useCallback, useEffect, useRef, useState } from "react";
-import type { TimedBar } from "@/lib/accompaniment/types";
 import { BarMarker } from "./marker";
+import { follow as followPlayback } from "./follow";
 import type { Playback } from "./engine";
 import { savePlayerSettings, usePlayerSettings, type PlayerSettings } from "./settings";
 import { requestFor, tempoAt, type Controls, type Tune, type TunePlan } from "./request";
@@ -12,19 +12,6 @@ import { requestFor, tempoAt, type Controls, type Tune, type TunePlan } from "./
 export type PlayerStatus = "idle" | "loading" | "playing" | "saving";
 
 let current: { stop: () => void } | null = null;
-
-/** The bar sounding `t` seconds in, or null during the count-in. */
-function barAt(bars: TimedBar[], t: number): TimedBar | null {
-  let lo = 0;
-  let hi = bars.length - 1;
-  if (hi < 0 || t < bars[0]!.start) return null;
-  while (lo < hi) {
-    const mid = (lo + hi + 1) >> 1;
-    if (bars[mid]!.start <= t + 1e-6) lo = mid;
-    else hi = mid - 1;
-  }
-  return bars[lo]!;
-}
 
 export interface PlayerHandle {
   status: PlayerStatus;
@@ -44,7 +31,7 @@ export function usePlayer(tune: Tune, plan: TunePlan | null, controls: Controls,
   const [bar, setBar] = useState<number | null>(null);
   const [error, setError] = useState<string | null>(null);
   const playback = useRef<Playback | null>(null);
-  const frame = useRef(0);
+  const unfollow = useRef<(() => void) | null>(null);
   const latest = useRef({ settings, turnTo, host });
   useEffect(() => {
     latest.current = { settings, turnTo, host };
@@ -52,7 +39,8 @@ export function usePlayer(tune: Tune, plan: TunePlan | null, controls: Controls,
   const marker = useRef<BarMarker | null>(null);
 
   const stop = useCallback(() => {
-    cancelAnimationFrame(frame.current);
+    unfollow.current?.();
+    unfollow.current = null;
     playback.current?.stop();
     playback.current = null;
     marker.current?.done(latest.current.host());
@@ -61,22 +49,18 @@ export function usePlayer(tune: Tune, plan: TunePlan | null, controls: Controls,
   }, []);
 
   const follow = useCallback((p: Playback, loop: boolean) => {
-    let shown: TimedBar | null | undefined;
-    const tick = () => {
-      const t = p.position();
-      if (!loop && t > p.accompaniment.duration) return stop();
-      const now = t < 0 ? null : barAt(p.accompaniment.bars, t);
-      if (now !== shown) {
-        shown = now;
+    marker.current ??= new BarMarker();
+    unfollow.current = followPlayback(p, {
+      host: () => latest.current.host(),
+      marker: marker.current,
+      loop,
+      onEnd: stop,
+      onBar: (now, page) => {
         const { settings: s, turnTo: turn, host: h } = latest.current;
-        marker.current ??= new BarMarker();
-        const { page } = marker.current.show(h(), now?.index ?? null, now?.number ?? null);
         if (turn && s.autoTurn && page !== null && String(page) !== h()?.dataset.page) turn(page);
         setBar(now?.number ?? null);
-      }
-      frame.current = requestAnimationFrame(tick);
-    };
-    frame.current = requestAnimationFrame(tick);
+      },
+    });
   }, [stop]);
 
   const start = useCallback(async () => {
