@@ -39,6 +39,8 @@ export interface PagedChartProps {
   className?: string;
   /** The reader's personal marks, keyed by `${section}:${bar}` (lib/setlist marksByBar). */
   marks?: ReadonlyMap<string, BarMark>;
+  /** This device follows the leader's calls on a gig (shown as data-following for outside checks). */
+  following?: boolean;
 }
 
 export function PagedChart({
@@ -54,6 +56,7 @@ export function PagedChart({
   onView,
   className,
   marks,
+  following,
 }: PagedChartProps) {
   const host = useRef<HTMLDivElement>(null);
   const live = useRef<HTMLParagraphElement>(null);
@@ -133,6 +136,7 @@ export function PagedChart({
         className="pp-sheets"
         style={{ width, height }}
         data-testid="chart-page"
+        data-following={following ? "true" : undefined}
         data-page="1"
         data-pages={layout?.pages.length ?? 0}
         data-systems={layout?.pages[0]?.systems.length ?? 0}
