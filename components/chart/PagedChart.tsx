@@ -17,6 +17,24 @@ import type { PageText } from "./engrave";
 import { musicFontsReady } from "./music-fonts";
 import "./sheets.css";
 
+/** The engraving code and its fonts, fetched once. */
+let engraving: Promise<[typeof import("./draw-sheets"), void]> | null = null;
+function loadEngraving() {
+  engraving ??= Promise.all([import("./draw-sheets"), musicFontsReady()]).catch((e: unknown) => {
+    // A failed fetch is not kept: the next draw tries again.
+    engraving = null;
+    throw e;
+  });
+  return engraving;
+}
+const prefetch = () => void loadEngraving().catch(() => undefined);
+// A page that draws starts fetching the engraving once the browser is idle after its first paint, so
+// it arrives while the book is still being read from the device or the network, not after.
+if (typeof window !== "undefined") {
+  if ("requestIdleCallback" in window) window.requestIdleCallback(prefetch, { timeout: 1500 });
+  else setTimeout(prefetch, 200);
+}
+
 export interface PagedChartControls {
   next: () => boolean;
   back: () => boolean;
@@ -93,7 +111,7 @@ export function PagedChart({
     const pages = layout.pages.length;
     const keepPage = Math.max(1, Math.min(flipper.current ? Number(el.dataset.page ?? 1) : startRef.current === "last" ? Infinity : startRef.current, pages));
     el.dataset.drawn = "false";
-    Promise.all([import("./draw-sheets"), musicFontsReady()])
+    loadEngraving()
       .then(([{ drawSheets }]) => {
         if (gone) return;
         const drawnMarks = new Map(JSON.parse(marksKey) as [string, BarMark][]);
