@@ -16,6 +16,7 @@ import { PagedChart, type PagedChartControls } from "./PagedChart";
 import { InstrumentPicker, IntroPicker, KeyPicker } from "./Pickers";
 import { PrintSheets } from "./PrintSheets";
 import { MarksPanel } from "@/components/marks/MarksPanel";
+import { NotSharedWithSub } from "@/components/library/SubNotices";
 import { useChartMarks } from "@/components/marks/useBarMarks";
 import { buildPerformance } from "./performance";
 import { useBoxSize } from "./useBoxSize";
@@ -60,6 +61,7 @@ export function ChartScreen() {
   if (!bandId || !chartId) return null;
   if (local === undefined) return <p className="p-6 text-ink-muted">Opening the chart…</p>;
   if (local === null || !chart) {
+    if (membership?.role === "sub") return <NotSharedWithSub bandId={bandId} />;
     return (
       <main id="main" className="mx-auto max-w-3xl p-6">
         <Notice kind="error" title="This chart is not in your book">
@@ -89,9 +91,11 @@ export function ChartScreen() {
           <Link href={`/bands/${encodeURIComponent(bandId)}/import/parts?chart=${encodeURIComponent(chartId)}`} className={buttonClass("secondary")} data-testid="open-parts">
             PDF parts
           </Link>
-          <a href={`/api/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(chartId)}/musicxml?instrument=${choices.instrument}`} className={buttonClass("secondary")} data-testid="export-musicxml" download>
-            MusicXML
-          </a>
+          {membership && membership.role !== "sub" ? (
+            <a href={`/api/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(chartId)}/musicxml?instrument=${choices.instrument}`} className={buttonClass("secondary")} data-testid="export-musicxml" download>
+              MusicXML
+            </a>
+          ) : null}
         </div>
       </div>
 

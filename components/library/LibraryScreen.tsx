@@ -13,6 +13,7 @@ import { ArchivedCharts } from "./ArchivedCharts";
 import { DigestButton } from "./DigestButton";
 import { LibraryControls } from "./LibraryControls";
 import { LibraryTable } from "./LibraryTable";
+import { SubEmptyBook } from "./SubNotices";
 import { applyQuery, facets, readQuery, writeQuery, type LibraryQuery, type SortColumn } from "./query";
 
 export function LibraryScreen() {
@@ -75,7 +76,9 @@ export function LibraryScreen() {
 
       <div className="mt-4">
         {charts === undefined ? (
-          <p className="py-8 text-center text-ink-muted">Opening the book…</p>
+          <LibrarySkeleton />
+        ) : all.length === 0 && membership?.role === "sub" ? (
+          <SubEmptyBook bandId={bandId} />
         ) : all.length === 0 ? (
           <Notice title="The book is empty">
             {canEdit
@@ -90,5 +93,19 @@ export function LibraryScreen() {
       </div>
       {canEdit ? <ArchivedCharts bandId={bandId} /> : null}
     </PageColumn>
+  );
+}
+
+/** Rows' shapes while the device's copy opens, so the page never sits blank. */
+function LibrarySkeleton() {
+  return (
+    <div role="status" aria-busy="true" data-testid="library-skeleton">
+      <span className="sr-only">Opening the book…</span>
+      <ul aria-hidden="true" className="flex flex-col gap-2">
+        {Array.from({ length: 6 }, (_, i) => (
+          <li key={i} className="h-14 animate-pulse rounded-md border border-paper-dim bg-paper-dim" />
+        ))}
+      </ul>
+    </div>
   );
 }
