@@ -6,7 +6,6 @@ import { route } from "@/lib/server/handler";
 import { MB } from "@/lib/server/request-guard";
 import { announceApplied } from "@/lib/server/push-announce";
 import { pushMutations } from "@/lib/server/sync";
-import { announceApplied } from "@/lib/server/push-announce";
 import { pullBody } from "@/lib/server/sync-pull";
 import { pullResponse } from "@/lib/server/sync-response";
 
