@@ -9,13 +9,19 @@ import type { Actor } from "./access";
 import { fanOut, type BandChange } from "./push";
 
 export function announce(db: Kysely<Database>, change: BandChange): void {
-  after(async () => {
+  const task = async () => {
     try {
       await fanOut(db, change);
     } catch (err) {
       console.warn(`push fan-out for band ${change.bandId} failed: ${(err as Error).message}`);
     }
-  });
+  };
+  try {
+    after(task);
+  } catch {
+    // Called outside a request (a script, a test calling the handler directly): run it detached.
+    void task();
+  }
 }
 
 /** After a sync push: one announcement for the charts and one per set list the device's edits changed. */
