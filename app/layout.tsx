@@ -1,4 +1,5 @@
 import type { Metadata, Viewport } from "next";
+import { headers } from "next/headers";
 import localFont from "next/font/local";
 import "./globals.css";
 import { SerwistProvider } from "@serwist/next/react";
@@ -26,7 +27,10 @@ export const viewport: Viewport = {
   initialScale: 1,
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Reading the request makes every page render per request, so each gets the proxy's fresh CSP
+  // nonce on its scripts (a page built ahead of time would carry none and be blocked).
+  await headers();
   return (
     <html lang="en" className={text.variable}>
       <body className="min-h-screen font-sans antialiased">

@@ -41,6 +41,19 @@ export function bandNameRow(db: Kysely<Database>, bandId: string): Promise<{ id:
   return all(db, `select id, name from bands where id = ?`, [bandId]);
 }
 
+/**
+ * The band and its cursor: the seq of its newest change (0 with none), one seek on the feed index
+ * changes_band_feed (band_id, seq, …). A poll whose `since` is already there has nothing to read.
+ */
+export function bandCursorRow(db: Kysely<Database>, bandId: string): Promise<{ id: string; name: string; head: number }[]> {
+  return all(
+    db,
+    `select b.id, b.name, coalesce((select max(c.seq) from changes c where c.band_id = b.id), 0) as head from bands b where b.id = ?`,
+    [bandId],
+    (r) => ({ id: r[0] as string, name: r[1] as string, head: Number(r[2]) }),
+  );
+}
+
 export interface FeedChange {
   seq: number;
   entity: string;

@@ -2,13 +2,14 @@
 // The bandstand view: one tune at a time, full screen, in a low-light theme, turned by tap or pedal.
 // Reusable for a whole set: pass several tunes, each with its own key and intro.
 import Link from "next/link";
-import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from "react";
 import type { Chart, IntroChoice } from "@/lib/chart/model";
 import type { BarMark } from "@/lib/setlist/marks";
 import { useOnline } from "@/lib/offline/hooks";
 import { PagedChart, type PagedChartControls } from "@/components/chart/PagedChart";
 import { buildPerformance } from "@/components/chart/performance";
-import { introInWords } from "@/lib/setlist";
+import { introInWords, type EndingChoice } from "@/lib/setlist";
+import { PlayerPanel } from "@/components/player";
 import { cx } from "@/components/ui/cx";
 import { saveReadingSettings, useReadingSettings, type Theme } from "./settings";
 import { usePedalKeys } from "./usePedalKeys";
@@ -31,6 +32,8 @@ export interface BandstandTune {
   introText?: string;
   /** The reader's personal marks on this chart, keyed by `${section}:${bar}`. */
   marks?: ReadonlyMap<string, BarMark>;
+  /** Tonight's ending from the set list, for playback. */
+  ending?: EndingChoice | null;
 }
 
 export interface BandstandProps {
@@ -43,6 +46,9 @@ export interface BandstandProps {
   exitHref: string;
   /** `at`: which page of the new tune opens (a parent that remounts this view passes it back as startAt). */
   onTuneChange?: (index: number, at: "first" | "last") => void;
+  /** Following the leader's calls on a gig (components/gig), and the gig's controls for the bar. */
+  following?: boolean;
+  gigControls?: ReactNode;
 }
 
 const BAR_HEIGHT = 44;
@@ -57,9 +63,10 @@ function introWords(tune: BandstandTune, ownIntroBars: number | null): string {
   if (tune.intro) return introInWords(tune.intro);
   return tune.intro === undefined && ownIntroBars ? `the tune's own, ${ownIntroBars} bars` : "none";
 }
+const stagePage = () => document.querySelector<HTMLElement>('.pp-bandstand-stage [data-testid="chart-page"]');
 const THEME_CLASS: Record<Theme, string> = { stage: "pp-theme-stage", ember: "pp-theme-ember" };
 
-export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exitHref, onTuneChange }: BandstandProps) {
+export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exitHref, onTuneChange, following, gigControls }: BandstandProps) {
   const settings = useReadingSettings();
   const online = useOnline();
   const [index, setIndex] = useState(() => Math.min(Math.max(0, start), Math.max(0, tunes.length - 1)));
@@ -164,6 +171,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
             halfTurns={settings.halfTurns}
             startPage={entry === "last" ? "last" : 1}
             marks={tune.marks}
+            following={following}
             label={`${tune.chart.title}, ${performance.text.partLabel}`}
             controls={controls}
             onView={(_, page, pages, atStart, atEnd) => {
@@ -198,6 +206,9 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
             {tune.next}
           </span>
         ) : null}
+        {tune ? (
+          <PlayerPanel key={index} variant="stage" chart={tune.chart} concertKey={tune.key} intro={tune.intro} ending={tune.ending} host={stagePage} turnTo={(p) => controls.current?.goToPage(p)} />
+        ) : null}
         <span ref={counter} className="pp-bar-counter" data-testid="page-counter" aria-hidden="true">
           1 / 1
         </span>
@@ -212,6 +223,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
             Tune →
           </button>
         ) : null}
+        {gigControls}
         <button type="button" className="pp-bar-button" aria-pressed={settings.halfTurns} onClick={toggleHalf} data-testid="half-turns">
           Half turns
         </button>

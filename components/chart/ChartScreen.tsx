@@ -4,6 +4,7 @@
 import Link from "next/link";
 import { useEffect, useMemo, useRef, useState } from "react";
 import type { IntroResult } from "@/lib/chart/model";
+import { ChangeSummary } from "@/components/changes/ChangeSummary";
 import { markChartSeen, useChart, useMembership } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
 import { ChartHistory } from "@/components/library/ChartHistory";
@@ -18,6 +19,7 @@ import { MarksPanel } from "@/components/marks/MarksPanel";
 import { useChartMarks } from "@/components/marks/useBarMarks";
 import { buildPerformance } from "./performance";
 import { useBoxSize } from "./useBoxSize";
+import { PlayerPanel } from "@/components/player";
 import { useChoices } from "./useChoices";
 
 export function ChartScreen() {
@@ -129,6 +131,8 @@ export function ChartScreen() {
         </section>
 
         <aside className="no-print flex min-w-0 flex-col gap-5" aria-label="Reading choices">
+          <ChangeSummary chartId={chartId} instrument={choices.instrument} tonightKey={choices.key} />
+          <PlayerPanel chart={chart} concertKey={choices.key} intro={choices.intro} tempo={choices.tempo} host={() => box?.querySelector<HTMLElement>('[data-testid="chart-page"]') ?? null} />
           <InstrumentPicker value={choices.instrument} onChange={choices.setInstrument} />
           <KeyPicker chartKey={chart.key} value={choices.key ?? chart.key} onChange={choices.setKey} />
           <IntroPicker

@@ -1,6 +1,7 @@
 "use client";
 // The band's library: read from the local book (never straight from the network), so it looks and
 // works the same with and without signal. Search, sort and filters live in the address.
+import { JoinedPrompt } from "@/components/push/JoinedPrompt";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useCallback, useMemo } from "react";
 import { LinkButton } from "@/components/ui/Button";
@@ -45,6 +46,7 @@ export function LibraryScreen() {
   if (!bandId) return null;
   return (
     <PageColumn wide>
+      <JoinedPrompt />
       <div className="mb-6 flex flex-wrap items-end justify-between gap-4">
         <div>
           <h1 className="text-2xl font-bold tracking-tight sm:text-3xl">Library</h1>

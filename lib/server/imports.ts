@@ -91,7 +91,7 @@ export async function previewImport(db: Kysely<Database>, actor: Actor | null, b
   let chart: Chart;
   let report: ImportReport;
   try {
-    ({ chart, report } = importScoreFile(file.bytes, { fileName: file.name }));
+    ({ chart, report } = importScoreFile(file.bytes, { fileName: file.name, fitChartText: true }));
   } catch (err) {
     if (err instanceof MusicXmlError) throw new AppError(MUSICXML_STATUS[err.code], err.message, { reason: err.code });
     throw err;

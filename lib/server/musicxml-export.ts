@@ -2,8 +2,8 @@ import "server-only";
 // A chart as a MusicXML download, in concert pitch or written for one of the band's instruments.
 import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
-import { INSTRUMENTS, type InstrumentId } from "@/lib/music";
-import { exportMusicXml } from "@/lib/musicxml";
+import type { InstrumentId } from "@/lib/music";
+import { exportMusicXml, partExportOptions } from "@/lib/musicxml";
 import type { Actor } from "./access";
 import { getChart } from "./charts";
 
@@ -11,8 +11,7 @@ export async function exportChartMusicXml(
   db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, instrument: InstrumentId,
 ): Promise<{ filename: string; xml: string }> {
   const chart = await getChart(db, actor, bandId, chartId);
-  const inst = INSTRUMENTS[instrument];
-  const xml = exportMusicXml(chart.body, { transpose: inst.transpose, clef: inst.clef, partName: inst.id === "concert" ? "Lead sheet" : inst.label });
+  const xml = exportMusicXml(chart.body, partExportOptions(instrument));
   const base = chart.title.replace(/[^\p{L}\p{N} _-]+/gu, "").trim().replace(/\s+/g, "-") || "chart";
   return { filename: `${base}${instrument === "concert" ? "" : `-${instrument}`}.musicxml`, xml };
 }

@@ -59,7 +59,7 @@ export async function consume(db: Kysely<Database>, spec: LimitSpec, key: string
 /** Whether `key` is already past the limit, without counting a try. */
 export async function isLimited(db: Kysely<Database>, spec: LimitSpec, key: string): Promise<boolean> {
   const res = await limiterFor(db, spec).get(key);
-  return res !== null && res.consumedPoints > spec.points;
+  return res !== null && res.consumedPoints >= spec.points;
 }
 
 /** Forgets the counts of `key` (a right password clears its failures). */

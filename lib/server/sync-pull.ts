@@ -5,13 +5,14 @@ import "server-only";
 import { createHash } from "node:crypto";
 import type { Kysely } from "kysely";
 import type { Database, Membership } from "@/db/schema";
-import { bandNameRow, feedPageRows, feedRemainingCount, rosterRows } from "@/db/sync-queries";
+import { bandCursorRow, feedPageRows, feedRemainingCount, rosterRows } from "@/db/sync-queries";
 import type { PullQuery } from "@/lib/offline/protocol";
 import { requireMember, type Actor } from "./access";
 import { AppError } from "./errors";
 import { sharedSetlistIds } from "./shares";
 import { loadAnnotationFeedRows, loadSetlistFeedRows, type FeedRow } from "./setlist-feed";
 import { loadAttachments, loadCharts } from "./sync-rows";
+import { PullBody, cachedPull, handleTag, keepPull } from "./pull-cache";
 
 const PULL_ENTITIES = new Set(["chart", "setlist", "annotation", "attachment"]);
 
@@ -73,14 +74,50 @@ function upsertJson(entity: string, id: string, data: string): string {
  * access ended, which tells the device to delete the band's data.
  */
 export async function pullChanges(db: Kysely<Database>, actor: Actor | null, bandId: string, q: PullQuery, now = new Date()): Promise<string> {
+  return (await pullBody(db, actor, bandId, q, now)).text;
+}
+
+/** The same page as a PullBody (bytes and gzip made once), from the page cache when it is there. */
+export async function pullBody(db: Kysely<Database>, actor: Actor | null, bandId: string, q: PullQuery, now = new Date()): Promise<PullBody> {
   const m = await requireMember(db, actor, bandId, "belong");
   const userId = m.user_id;
-  const [band] = await bandNameRow(db, bandId);
+  const [band] = await bandCursorRow(db, bandId);
   if (!band) throw new AppError("not_found", "That band was not found.");
   const visible = m.role === "sub" ? await visibleToSub(db, bandId, userId, now) : null;
   const scope = scopeOf(m, visible);
   const rescoped = q.scope !== undefined && q.scope !== scope;
   const since = rescoped ? 0 : q.since;
+  const head = (extra: string) =>
+    `{"seq":${since},"more":false,"scope":${JSON.stringify(scope)}${extra},"band":${JSON.stringify({ id: band.id, name: band.name })},` +
+    `"membership":${JSON.stringify({ bandId, role: m.role, instrument: m.instrument, expiresAt: m.expires_at })}`;
+  // Up to date (the usual poll): the band's cursor says there is nothing after `since`, so the feed
+  // is not read. A leader's very first pull still goes the long way, for the roster.
+  if (since >= band.head && (since > 0 || m.role !== "leader")) {
+    const total = q.count === "1" ? `,"total":${visible ? visible.charts.size + visible.setlists.size : 0}` : "";
+    return new PullBody(`${head(total)},"changes":[]}`);
+  }
+  // Subs are left out of the cache: what they may see changes with the clock (shares end).
+  const key = visible ? null : JSON.stringify([handleTag(db), bandId, band.name, band.head, userId, m.role, m.instrument, m.expires_at, scope, since, q.limit, q.count ?? "0"]);
+  const hit = key ? cachedPull(key) : null;
+  if (hit) return hit;
+  const body = new PullBody(await buildPage(db, m, bandId, band, { since, rescoped, scope, visible, limit: q.limit, count: q.count === "1" }, now));
+  if (key) keepPull(key, body);
+  return body;
+}
+
+interface PageAsk {
+  since: number;
+  rescoped: boolean;
+  scope: string;
+  visible: Visible | null;
+  limit: number;
+  count: boolean;
+}
+
+async function buildPage(db: Kysely<Database>, m: Membership, bandId: string, band: { id: string; name: string }, ask: PageAsk, now: Date): Promise<string> {
+  const { since, rescoped, scope, visible } = ask;
+  const userId = m.user_id;
+  const q = { limit: ask.limit };
 
   const rows = await feedPageRows(db, bandId, userId, since, q.limit + 1);
   const more = rows.length > q.limit;
@@ -132,7 +169,7 @@ export async function pullChanges(db: Kysely<Database>, actor: Actor | null, ban
     }
   }
 
-  const total = q.count === "1" ? (visible ? visible.charts.size + visible.setlists.size : await feedRemainingCount(db, bandId, userId, since, [...PULL_ENTITIES])) : undefined;
+  const total = ask.count ? (visible ? visible.charts.size + visible.setlists.size : await feedRemainingCount(db, bandId, userId, since, [...PULL_ENTITIES])) : undefined;
   const withRoster = m.role === "leader" && (since === 0 || membershipChanged);
   const membership = { bandId, role: m.role, instrument: m.instrument, expiresAt: m.expires_at };
   let out = `{"seq":${seq},"more":${more},"scope":${JSON.stringify(scope)}`;
