@@ -1,4 +1,5 @@
 import type { Kysely } from "kysely";
+import { addFeedSeqColumn } from "../engine";
 
 // Reaching every device: the server's VAPID keys, each device's push subscription per band, what each
 // device last reported holding (readiness for tonight), and the tunes the leader called on a gig.
@@ -39,9 +40,8 @@ export async function up(db: Kysely<unknown>): Promise<void> {
     .execute();
   await db.schema.createIndex("device_reports_band_user").on("device_reports").columns(["band_id", "user_id"]).execute();
 
-  await db.schema
-    .createTable("gig_calls")
-    .addColumn("seq", "integer", (c) => c.primaryKey().autoIncrement())
+  // An increasing seq on both engines (db/engine.ts), like the change feed's.
+  await addFeedSeqColumn(db, db.schema.createTable("gig_calls"))
     .addColumn("band_id", "text", (c) => c.notNull())
     .addColumn("setlist_id", "text", (c) => c.notNull())
     .addColumn("entry_id", "text", (c) => c.notNull())

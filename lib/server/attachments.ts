@@ -2,10 +2,8 @@ import "server-only";
 import type { WireAttachment } from "@/lib/offline/protocol";
 // PDF and image parts of a chart: the type is read from the file's first bytes (never trusted from
 // the name or the browser), the size is capped, and the file is stored once under its sha256 in the
-// data folder. Each upload adds a row and an "attachment" change so devices fetch it for offline use.
-import { createHash } from "node:crypto";
-import fs from "node:fs/promises";
-import path from "node:path";
+// part store (lib/server/part-store: the data folder, or object storage). Each upload adds a row and
+// an "attachment" change so devices fetch it for offline use.
 import type { Kysely } from "kysely";
 import type { AttachmentRow, Database } from "@/db/schema";
 import { requireMember, type Actor } from "./access";
@@ -13,6 +11,7 @@ import { recordChange } from "./changes";
 import { AppError } from "./errors";
 import { readUpload, type Upload } from "./imports";
 import { requireChartReader } from "./chart-access";
+import { partStore, PartTooLarge, type StoredPart } from "./part-store";
 import { newId, nowIso } from "./tokens";
 
 export const MAX_ATTACHMENT_BYTES = 20 * 1024 * 1024;
@@ -21,11 +20,6 @@ export type AttachmentType = (typeof ATTACHMENT_TYPES)[number];
 
 /** The wire shape devices store (one definition, shared with the sync client). */
 export type AttachmentDto = WireAttachment;
-
-export function dataDir(): string {
-  // the data folder is chosen at run time; the build must not trace it
-  return path.resolve(/*turbopackIgnore: true*/ process.env.DATA_DIR ?? path.join(/*turbopackIgnore: true*/ process.cwd(), "data"));
-}
 
 /** The file's type from its magic bytes: %PDF-, the PNG signature, or a JPEG start-of-image marker. */
 export function sniffAttachment(b: Uint8Array): AttachmentType | null {
@@ -60,24 +54,21 @@ export async function uploadAttachment(db: Kysely<Database>, actor: Actor | null
   }
   const type = sniffAttachment(file.bytes);
   if (!type) throw new AppError("unsupported_media_type", "Pedalpoint takes PDF, PNG and JPEG files for parts; this file is none of those.");
-  const sha256 = createHash("sha256").update(file.bytes).digest("hex");
-  const rel = path.posix.join("attachments", sha256);
-  const abs = path.join(/*turbopackIgnore: true*/ dataDir(), "attachments", sha256);
-  await fs.mkdir(path.dirname(abs), { recursive: true });
-  const exists = await fs.stat(abs).then(() => true, () => false);
-  if (!exists) {
-    const tmp = `${abs}.${process.pid}.${Date.now()}.part`;
-    await fs.writeFile(tmp, file.bytes);
-    await fs.rename(tmp, abs);
+  let stored: StoredPart;
+  try {
+    stored = await partStore().put([file.bytes], { maxBytes: MAX_ATTACHMENT_BYTES, type });
+  } catch (err) {
+    if (err instanceof PartTooLarge) throw new AppError("payload_too_large", "That file is larger than 20 MB, the most Pedalpoint takes for a part.");
+    throw err;
   }
   const row: AttachmentRow = {
     id: newId(),
     band_id: bandId,
     chart_id: chartId,
     filename: file.name.replace(/[\\/\u0000-\u001f]/g, "_").slice(0, 200) || "part",
-    path: rel,
-    sha256,
-    size: file.bytes.byteLength,
+    path: stored.key,
+    sha256: stored.sha256,
+    size: stored.size,
     type,
     pages: type === "application/pdf" ? pdfPages(file.bytes) : 1,
     uploaded_by: (actor as Actor).userId,
@@ -100,17 +91,37 @@ export async function listAttachments(db: Kysely<Database>, actor: Actor | null,
   return rows.map(toDto);
 }
 
+/** How long a signed address to a part in object storage stays good. */
+export const SIGNED_URL_SECONDS = 60;
+
+export type AttachmentBody =
+  | { dto: AttachmentDto; stream: ReadableStream<Uint8Array>; size: number; url?: undefined }
+  | { dto: AttachmentDto; url: string; stream?: undefined };
+
+/**
+ * A part's bytes for a member: streamed from the store, or (object storage with
+ * PARTS_SIGNED_URLS=1) a short-lived signed address to fetch them from directly.
+ */
 export async function readAttachment(
   db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, attachmentId: string,
-): Promise<{ dto: AttachmentDto; bytes: Buffer }> {
+): Promise<AttachmentBody> {
   await requireReader(db, actor, bandId, chartId);
   const row = await db.selectFrom("attachments").selectAll().where("band_id", "=", bandId).where("chart_id", "=", chartId).where("id", "=", attachmentId).where("deleted_at", "is", null).executeTakeFirst();
   if (!row) throw new AppError("not_found", "That part was not found.");
-  const abs = path.join(/*turbopackIgnore: true*/ dataDir(), row.path);
-  if (!abs.startsWith(dataDir() + path.sep)) throw new AppError("not_found", "That part was not found.");
-  const bytes = await fs.readFile(abs).catch(() => null);
-  if (!bytes) throw new AppError("not_found", "That part's file is missing on the server.");
-  return { dto: toDto(row), bytes };
+  const store = partStore();
+  const dto = toDto(row);
+  if (process.env.PARTS_SIGNED_URLS === "1") {
+    const url = await store.signedUrl(row.path, { filename: safeFilename(dto.filename), type: dto.type, seconds: SIGNED_URL_SECONDS });
+    if (url) return { dto, url };
+  }
+  const body = await store.open(row.path);
+  if (!body) throw new AppError("not_found", "That part's file is missing on the server.");
+  return { dto, stream: body.stream, size: body.size };
+}
+
+/** The file name as a header value can carry it. */
+export function safeFilename(name: string): string {
+  return name.replace(/[^\x20-\x7e]/g, "_").replace(/"/g, "'");
 }
 
 export async function deleteAttachment(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, attachmentId: string): Promise<void> {

@@ -51,9 +51,11 @@ describe("uploading a PDF or image part", () => {
 
   it("lets members who read the book fetch the file; players cannot upload", async () => {
     const dto = await uploadAttachmentRequest(db, cast.leader, cast.bandId, chartId, multipart("c.jpg", new Uint8Array([0xff, 0xd8, 0xff, 0xe0, 1, 2, 3])));
-    const { bytes, dto: got } = await readAttachment(db, cast.player, cast.bandId, chartId, dto.id);
+    const { stream, dto: got } = await readAttachment(db, cast.player, cast.bandId, chartId, dto.id);
     expect(got.type).toBe("image/jpeg");
+    const bytes = new Uint8Array(await new Response(stream).arrayBuffer());
     expect(bytes.byteLength).toBe(7);
+    expect([...bytes]).toEqual([0xff, 0xd8, 0xff, 0xe0, 1, 2, 3]);
     expect((await listAttachments(db, cast.player, cast.bandId, chartId)).map((a) => a.id)).toContain(dto.id);
     expect(await outcome(() => uploadAttachmentRequest(db, cast.player, cast.bandId, chartId, multipart("d.png", PNG)))).toBe(403);
     expect(await outcome(() => readAttachment(db, cast.outsider, cast.bandId, chartId, dto.id))).toBe(404);

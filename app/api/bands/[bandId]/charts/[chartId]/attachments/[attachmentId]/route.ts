@@ -1,22 +1,25 @@
 import { z } from "zod";
 import { ready } from "@/db";
-import { deleteAttachment, readAttachment } from "@/lib/server/attachments";
+import { deleteAttachment, readAttachment, safeFilename } from "@/lib/server/attachments";
 import { route } from "@/lib/server/handler";
 import { IdSchema } from "@/lib/validation/common";
 
 const Params = z.object({ bandId: IdSchema, chartId: IdSchema, attachmentId: IdSchema }).strict();
 
 export const GET = route({ params: Params }, async ({ actor, params }) => {
-  const { dto, bytes } = await readAttachment(await ready(), actor, params.bandId, params.chartId, params.attachmentId);
-  return new Response(new Uint8Array(bytes), {
+  const part = await readAttachment(await ready(), actor, params.bandId, params.chartId, params.attachmentId);
+  // Object storage with signed addresses: the member fetches the bytes from the store directly.
+  if (part.url !== undefined) return new Response(null, { status: 302, headers: { location: part.url, "cache-control": "no-store" } });
+  // Streamed from the store as they arrive, never held whole here.
+  return new Response(part.stream, {
     headers: {
-      "content-type": dto.type,
-      "content-length": String(bytes.byteLength),
-      "content-disposition": `inline; filename="${dto.filename.replace(/[^\x20-\x7e]/g, "_").replace(/"/g, "'")}"`,
+      "content-type": part.dto.type,
+      "content-length": String(part.size),
+      "content-disposition": `inline; filename="${safeFilename(part.dto.filename)}"`,
       "x-content-type-options": "nosniff",
       // the file behind an id never changes (it is stored under its hash)
       "cache-control": "private, max-age=31536000, immutable",
-      etag: `"${dto.sha256}"`,
+      etag: `"${part.dto.sha256}"`,
     },
   });
 });
