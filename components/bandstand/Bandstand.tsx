@@ -2,6 +2,7 @@
 // The bandstand view: one tune at a time, full screen, in a low-light theme, turned by tap or pedal.
 // Reusable for a whole set: pass several tunes, each with its own key and intro.
 import Link from "next/link";
+import { useRouter } from "next/navigation";
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import type { Chart, IntroChoice } from "@/lib/chart/model";
 import type { BarMark } from "@/lib/setlist/marks";
@@ -57,6 +58,32 @@ function introWords(tune: BandstandTune, ownIntroBars: number | null): string {
   if (tune.intro) return introInWords(tune.intro);
   return tune.intro === undefined && ownIntroBars ? `the tune's own, ${ownIntroBars} bars` : "none";
 }
+/** Escape leaves the view the way Close does (unless Escape is mapped to a pedal). */
+function useEscapeTo(href: string) {
+  const router = useRouter();
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent) => {
+      if (e.key !== "Escape" || e.defaultPrevented || e.altKey || e.ctrlKey || e.metaKey) return;
+      e.preventDefault();
+      router.push(href);
+    };
+    window.addEventListener("keydown", onKey);
+    return () => window.removeEventListener("keydown", onKey);
+  }, [href, router]);
+}
+
+/** A bar label: whole on a laptop, short on a phone (CSS shows one); the whole one names the button. */
+function Label({ long, short }: { long: string; short: string }) {
+  return (
+    <>
+      <span className="pp-long">{long}</span>
+      <span className="pp-short" aria-hidden="true">
+        {short}
+      </span>
+    </>
+  );
+}
+
 const THEME_CLASS: Record<Theme, string> = { stage: "pp-theme-stage", ember: "pp-theme-ember" };
 
 export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exitHref, onTuneChange }: BandstandProps) {
@@ -117,6 +144,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
     [index, last, onTuneChange],
   );
   usePedalKeys(settings.nextKeys, settings.backKeys, turn);
+  useEscapeTo(exitHref);
 
   const goTune = (i: number) => {
     if (i < 0 || i >= tunes.length || i === index) return;
@@ -125,7 +153,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
     onTuneChange?.(i, "first");
   };
   const setTheme = (theme: Theme) => saveReadingSettings({ ...settings, theme });
-  const toggleHalf = () => saveReadingSettings({ ...settings, halfTurns: !settings.halfTurns });
+  const toggleEarlyTurn = () => saveReadingSettings({ ...settings, earlyTurn: !settings.earlyTurn });
 
   const concertKey = performance?.arrangement.concertKey ?? tune?.key ?? tune?.chart.key ?? "";
   const writtenKey = performance?.arrangement.writtenKey ?? concertKey;
@@ -161,7 +189,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
             text={performance.text}
             width={size.width}
             height={size.height}
-            halfTurns={settings.halfTurns}
+            earlyTurn={settings.earlyTurn}
             startPage={entry === "last" ? "last" : 1}
             marks={tune.marks}
             label={`${tune.chart.title}, ${performance.text.partLabel}`}
@@ -185,8 +213,15 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
           Close
         </Link>
         {tunes.length > 1 ? (
-          <button type="button" className="pp-bar-button" onClick={() => goTune(index - 1)} disabled={index === 0} data-testid="prev-tune">
-            ← Tune
+          <button
+            type="button"
+            className="pp-bar-button"
+            onClick={() => goTune(index - 1)}
+            disabled={index === 0}
+            aria-label="Previous tune"
+            data-testid="prev-tune"
+          >
+            <Label long="← Tune" short="←" />
           </button>
         ) : null}
         <span className="pp-bar-title" data-testid="tune-label">
@@ -194,7 +229,8 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
           {tunes.length > 1 ? ` (${index + 1} of ${tunes.length})` : ""}
         </span>
         {tune?.next ? (
-          <span className="pp-bar-next" data-testid="next-up">
+          // Cut short with an ellipsis, never wrapped; a phone has it in the header instead.
+          <span className="pp-bar-next" data-testid="next-up" title={tune.next}>
             {tune.next}
           </span>
         ) : null}
@@ -207,21 +243,30 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
             className={cx("pp-bar-button", ends.atEnd && index < tunes.length - 1 && "pp-bar-next-ready")}
             onClick={() => goTune(index + 1)}
             disabled={index >= tunes.length - 1}
+            aria-label="Next tune"
             data-testid="next-tune"
           >
-            Tune →
+            <Label long="Tune →" short="→" />
           </button>
         ) : null}
-        <button type="button" className="pp-bar-button" aria-pressed={settings.halfTurns} onClick={toggleHalf} data-testid="half-turns">
-          Half turns
+        <button
+          type="button"
+          className="pp-bar-button"
+          aria-pressed={settings.earlyTurn}
+          aria-label="Early turn"
+          onClick={toggleEarlyTurn}
+          data-testid="early-turn"
+        >
+          <Label long="Early turn" short="Early" />
         </button>
         <button
           type="button"
           className="pp-bar-button"
           onClick={() => setTheme(settings.theme === "stage" ? "ember" : "stage")}
+          aria-label={settings.theme === "stage" ? "Night light" : "Stage light"}
           data-testid="theme-toggle"
         >
-          {settings.theme === "stage" ? "Night light" : "Stage light"}
+          <Label long={settings.theme === "stage" ? "Night light" : "Stage light"} short={settings.theme === "stage" ? "Night" : "Stage"} />
         </button>
         {!online ? (
           <span className="pp-offline" data-testid="offline-badge" role="status">

@@ -7,7 +7,7 @@ import type { Arrangement } from "@/lib/chart/model";
 import type { BarMark } from "@/lib/setlist/marks";
 import { layoutChart } from "@/lib/render/layout";
 import type { LayoutOptions } from "@/lib/render/types";
-import type { View } from "@/lib/render/half";
+import type { View } from "@/lib/render/early-turn";
 import { PageFlipper } from "@/components/bandstand/flipper";
 import { drawSheets, musicFontsReady } from "./draw-sheets";
 import type { PageText } from "./engrave";
@@ -24,7 +24,7 @@ export interface PagedChartProps {
   text: PageText;
   width: number;
   height: number;
-  halfTurns?: boolean;
+  earlyTurn?: boolean;
   /** Page shown first when drawn (read once, on mount): 1-based, or the last page. */
   startPage?: number | "last";
   layout?: Partial<LayoutOptions>;
@@ -42,7 +42,7 @@ export function PagedChart({
   text,
   width,
   height,
-  halfTurns = false,
+  earlyTurn = false,
   startPage = 1,
   layout: extra,
   label,
@@ -91,9 +91,9 @@ export function PagedChart({
         flipper.current = new PageFlipper(
           el,
           pages,
-          { halfFractions: layout.pages.map((p) => p.halfY / p.height) },
+          { earlyTurnFractions: layout.pages.map((p) => p.earlyTurnY / p.height) },
           live.current,
-          halfTurns,
+          earlyTurn,
           (view, index, views) => onViewRef.current?.(view, Number(el.dataset.page), pages, index === 0, index === views.length - 1),
         );
         flipper.current.goToPage(Math.max(1, Math.min(keepPage, pages)));
@@ -107,7 +107,7 @@ export function PagedChart({
       gone = true;
       job?.cancel();
     };
-  }, [layout, arrangement.writtenKey, textKey, halfTurns, marksKey]);
+  }, [layout, arrangement.writtenKey, textKey, earlyTurn, marksKey]);
 
   return (
     <div className={className} style={{ width, height, position: "relative" }}>

@@ -2,7 +2,7 @@
 // The reader's choices for one chart: from the address first, then this device's memory of the
 // last part chosen in the band, then the membership's instrument, then concert.
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
-import { useCallback, useMemo, useSyncExternalStore } from "react";
+import { useCallback, useMemo, useRef, useSyncExternalStore } from "react";
 import type { IntroChoice } from "@/lib/chart/model";
 import { isInstrumentId, type InstrumentId } from "@/lib/music/instruments";
 import { rememberInstrument, rememberedInstrument } from "@/components/bandstand/settings";
@@ -32,12 +32,27 @@ export function useChoices(bandId: string | null, membershipInstrument: string |
   const fallback = [remembered, membershipInstrument].find(isInstrumentId) ?? "concert";
   const instrument = parsed.instrument ?? fallback;
 
+  // The address the last change asked for. The router applies a replace later, so two quick
+  // changes (a key, then a part) must build on what was asked, not on the address not yet updated.
+  const asked = useRef<{ from: string; query: string } | null>(null);
+  const current = params.toString();
+
   const replace = useCallback(
     (next: { instrument?: string | null; key?: string | null; intro?: IntroChoice | null }) => {
-      const q = chartQuery({ instrument, key: parsed.key, tempo: parsed.tempo, intro: parsed.intro, list, ...next });
+      const pending = asked.current && asked.current.from === current ? new URLSearchParams(asked.current.query) : null;
+      const base = pending ? parseChartParams(pending) : parsed;
+      const q = chartQuery({
+        instrument: base.instrument ?? instrument,
+        key: base.key,
+        tempo: base.tempo,
+        intro: base.intro,
+        list: pending ? pending.get("list") : list,
+        ...next,
+      });
+      asked.current = { from: current, query: q };
       router.replace(`${window.location.pathname || pathname}${q}`, { scroll: false });
     },
-    [instrument, parsed.key, parsed.tempo, parsed.intro, list, router, pathname],
+    [current, instrument, parsed, list, router, pathname],
   );
 
   return {

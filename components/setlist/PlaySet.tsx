@@ -75,5 +75,18 @@ export function PlaySet() {
       </Notice>
     );
   }
-  return <Bandstand tunes={tunes} instrument={instrument} start={Math.min(start, tunes.length - 1)} exitHref={exit} />;
+  return (
+    <Bandstand
+      tunes={tunes}
+      instrument={instrument}
+      start={Math.min(start, tunes.length - 1)}
+      exitHref={exit}
+      onTuneChange={(i) => {
+        // The place in the set lives in the address, so a reload (or a worker-served shell) reopens this tune.
+        const q = new URLSearchParams(window.location.search);
+        q.set("tune", String(i + 1));
+        window.history.replaceState(window.history.state, "", `${window.location.pathname}?${q.toString()}`);
+      }}
+    />
+  );
 }

@@ -174,9 +174,9 @@ function paginate(lines: PlacedBar[][], g: PageGeometry): Page[] {
       return { index: next + i, y, staffY, height: slot, bars };
     });
     next += rows;
-    const halfIndex = Math.ceil(systems.length / 2);
-    const halfY = systems[halfIndex]?.y ?? g.height;
-    pages.push({ number: pages.length + 1, width: g.width, height: g.height, zoom: g.zoom, systems, header, halfIndex, halfY });
+    const earlyTurnIndex = Math.ceil(systems.length / 2);
+    const earlyTurnY = systems[earlyTurnIndex]?.y ?? g.height;
+    pages.push({ number: pages.length + 1, width: g.width, height: g.height, zoom: g.zoom, systems, header, earlyTurnIndex, earlyTurnY });
   } while (next < lines.length);
   return pages;
 }

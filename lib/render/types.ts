@@ -82,9 +82,9 @@ export interface Page {
   zoom: number;
   systems: System[];
   header: PageHeader | null;
-  /** Systems before this index form the top half (for half-page turns); `halfY` is where the bottom half begins. */
-  halfIndex: number;
-  halfY: number;
+  /** Systems before this index are what an early turn keeps of the page; `earlyTurnY` is where the next page's systems rise in. */
+  earlyTurnIndex: number;
+  earlyTurnY: number;
 }
 
 export interface ChartLayout {
