@@ -30,7 +30,8 @@ export function openDatabase(file = databasePath()): Kysely<Schema> {
 }
 
 export async function migrateToLatest(db: Kysely<Schema>): Promise<string[]> {
-  const migrator = new Migrator({ db, provider: migrationProvider });
+  // Migrations from parallel work may land out of number order; apply whichever are missing.
+  const migrator = new Migrator({ db, provider: migrationProvider, allowUnorderedMigrations: true });
   const { error, results } = await migrator.migrateToLatest();
   if (error) throw error instanceof Error ? error : new Error(String(error));
   return (results ?? []).filter((r) => r.status === "Success").map((r) => r.migrationName);

@@ -11,6 +11,10 @@ export interface UsersTable {
   password_hash: string | null; // null for accounts made through a sign-in link
   default_instrument: string; // instrument id, see lib/music/instruments
   created_at: string;
+  /** Bumped to end every session of the user at once. */
+  session_version: ColumnType<number, number | undefined, number>;
+  /** When the address was proven by an opened sign-in link; null until then. */
+  email_verified_at: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
 export interface BandsTable {
@@ -86,6 +90,8 @@ export interface SetlistsTable {
   updated_by: string;
   updated_at: string;
   deleted_at: string | null;
+  /** The length the leader wants for each set, in minutes: JSON array, index 0 = set 1 (null = not set). */
+  set_minutes_json: ColumnType<string, string | undefined, string>;
 }
 
 export interface SetlistEntriesTable {
@@ -100,7 +106,19 @@ export interface SetlistEntriesTable {
   ending: string | null; // ending choice as JSON text
   tempo: number | null;
   solo_order: string;
+  /** Choruses each soloist takes on this tune tonight. */
+  choruses: ColumnType<number, number | undefined, number>;
+  /** 1 = no intro tonight (straight in at the top), even where the chart has its own. */
+  straight_in: ColumnType<number, number | undefined, number>;
   notes: string;
+}
+
+/** Charts put away: tombstoned in `charts` like a delete, kept here so they can be brought back. */
+export interface ChartArchiveTable {
+  chart_id: string;
+  band_id: string;
+  archived_at: string;
+  archived_by: string;
 }
 
 export interface AnnotationsTable {
@@ -202,6 +220,7 @@ export interface Database {
   chart_revisions: ChartRevisionsTable;
   setlists: SetlistsTable;
   setlist_entries: SetlistEntriesTable;
+  chart_archive: ChartArchiveTable;
   annotations: AnnotationsTable;
   attachments: AttachmentsTable;
   shares: SharesTable;
@@ -211,6 +230,22 @@ export interface Database {
   login_attempts: LoginAttemptsTable;
   sign_in_tokens: SignInTokensTable;
   band_digests: BandDigestsTable;
+  rate_limits: RateLimitsTable;
+  ended_sessions: EndedSessionsTable;
+}
+
+/** rate-limiter-flexible's rows (its own layout); expire is epoch milliseconds. */
+export interface RateLimitsTable {
+  key: string;
+  points: number;
+  expire: number | null;
+}
+
+/** A session ended by signing out, kept until its token would have expired anyway. */
+export interface EndedSessionsTable {
+  sid: string;
+  user_id: string;
+  ends_at: string;
 }
 
 export type User = Selectable<UsersTable>;

@@ -86,7 +86,7 @@ export async function seedDemo(db: Kysely<Database>, now = new Date()): Promise<
       if (!hash) continue;
       const r = await trx
         .insertInto("users")
-        .values({ id: demoId(`user:${a.email}`), email: a.email, name: a.name, password_hash: hash, default_instrument: a.instrument, created_at: CREATED_AT })
+        .values({ id: demoId(`user:${a.email}`), email: a.email, name: a.name, password_hash: hash, default_instrument: a.instrument, created_at: CREATED_AT, email_verified_at: CREATED_AT })
         .onConflict((oc) => oc.column("email").doNothing())
         .execute();
       usersCreated += inserted(r);

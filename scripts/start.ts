@@ -100,7 +100,10 @@ function banner(url: string, seeded: boolean): void {
   if (seeded) {
     lines.push(`The demo band's library: ${url}/bands/${DEMO_BAND_ID}`, ``, `Demo accounts:`, demoAccountsTable());
   }
-  if (process.env.MAIL_FAKE === "1") lines.push(``, `Captured mail: ${url}/dev/mail`);
+  if (process.env.MAIL_FAKE === "1") {
+    // The key opens the whole captured box (sign-in links included): it is printed here only.
+    lines.push(``, `Captured mail (all of it, keep this address to yourself): ${url}/dev/mail?key=${process.env.MAIL_VIEW_KEY}`);
+  }
   console.log(lines.join("\n") + "\n");
 }
 
@@ -112,6 +115,7 @@ export async function runStart(flags: StartFlags): Promise<void> {
     process.env.NEXTAUTH_SECRET = randomBytes(32).toString("base64url");
     console.warn("NEXTAUTH_SECRET is not set: using a random one, so sign-ins end when the server restarts.");
   }
+  if (process.env.MAIL_FAKE === "1") process.env.MAIL_VIEW_KEY ??= randomBytes(18).toString("base64url");
   if (flags.fresh) removeFresh();
   await prepareDatabase(flags);
   const fakes = await startFakes();

@@ -8,6 +8,7 @@ import { PageColumn, PageTitle } from "@/components/ui/Page";
 import { useChart, useMembership } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
 import { ChartForm } from "./ChartForm";
+import { ChartRemoval } from "./ChartRemoval";
 import { emptyValues, valuesFrom } from "./chart-form-model";
 
 function EditorsOnly({ bandId, children }: { bandId: string; children: ReactNode }) {
@@ -53,7 +54,12 @@ function EditLoaded({ bandId, chartId }: { bandId: string; chartId: string }) {
   }
   // Keyed by chart, not revision: a newer version arriving mid-edit must not wipe what is typed;
   // saving then meets the conflict and shows both versions.
-  return <ChartForm key={chart.id} bandId={bandId} initial={valuesFrom(chart)} editing={{ chartId: chart.id, revision: chart.revision }} />;
+  return (
+    <>
+      <ChartForm key={chart.id} bandId={bandId} initial={valuesFrom(chart)} editing={{ chartId: chart.id, revision: chart.revision }} />
+      <ChartRemoval bandId={bandId} chartId={chart.id} revision={chart.revision} title={chart.title} />
+    </>
+  );
 }
 
 export function EditChartScreen() {

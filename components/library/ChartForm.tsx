@@ -2,14 +2,14 @@
 // Create or edit a chart: the metadata, the chart text (checked as you type) and a change message.
 // Saving goes through the offline layer, which publishes at once or queues the edit without signal.
 import { useRouter } from "next/navigation";
-import { useDeferredValue, useMemo, useState, type FormEvent } from "react";
+import { useMemo, useState, type FormEvent } from "react";
 import { Button, LinkButton } from "@/components/ui/Button";
 import { Field, SelectField } from "@/components/ui/Field";
 import { Notice } from "@/components/ui/Notice";
 import { prettyKey } from "@/components/ui/labels";
 import { ChartTextError, parseChartText } from "@/lib/chart";
 import { saveChart } from "@/lib/offline/mutations";
-import { ChartTextEditor, ChartTextHelp } from "./ChartTextEditor";
+import { ChartTextEditor, ChartTextHelp, useSettledValue } from "./ChartTextEditor";
 import { ConflictPanel, type ConflictVersion } from "./ConflictPanel";
 import {
   FEEL_SUGGESTIONS,
@@ -64,7 +64,8 @@ export function ChartForm({ bandId, initial, editing }: Props) {
   const [saving, setSaving] = useState(false);
   const [earlier, setEarlier] = useState<string | null>(null);
 
-  const deferred = useDeferredValue(values);
+  // Checked once typing settles, so a long paste costs one parse instead of one per keystroke.
+  const deferred = useSettledValue(values);
   const live = useMemo(() => liveProblem(deferred), [deferred]);
   const liveText = live && !("field" in live) ? live : null;
   const liveField = live && "field" in live ? live : null;

@@ -1,6 +1,6 @@
 "use client";
 // The chart text box: monospace, line numbers beside it, and a text problem pinned to its line.
-import { useId, useRef } from "react";
+import { useEffect, useId, useMemo, useRef, useState } from "react";
 import { cx } from "@/components/ui/cx";
 import type { TextProblem } from "./chart-form-model";
 
@@ -14,6 +14,23 @@ interface Props {
 }
 
 const LINE = "leading-6"; // gutter and text share one line height so numbers line up
+
+/** The value once it has stood still for `ms`: a long paste is checked once, not on every keystroke. */
+export function useSettledValue<T>(value: T, ms = 300): T {
+  const [settled, setSettled] = useState(value);
+  useEffect(() => {
+    const t = setTimeout(() => setSettled(value), ms);
+    return () => clearTimeout(t);
+  }, [value, ms]);
+  return settled;
+}
+
+/** Line count without building an array of every line (a 5,000-line paste stays cheap). */
+function countLines(text: string): number {
+  let n = 1;
+  for (let at = text.indexOf("\n"); at >= 0; at = text.indexOf("\n", at + 1)) n++;
+  return n;
+}
 
 /** Offset in the text where a 1-based line starts. */
 function lineStart(text: string, line: number): number {
@@ -30,7 +47,10 @@ export function ChartTextEditor({ value, onChange, problem, problemSource = "liv
   const id = useId();
   const area = useRef<HTMLTextAreaElement>(null);
   const gutter = useRef<HTMLDivElement>(null);
-  const lines = Math.max(value.split("\n").length, 12);
+  const lines = Math.max(countLines(value), 12);
+  const problemLine = problem?.line ?? 0;
+  // The gutter is one text block plus one marked line, so its cost does not grow with each keystroke.
+  const numbers = useMemo(() => Array.from({ length: lines }, (_, i) => i + 1).join("\n"), [lines]);
 
   function showProblem() {
     const el = area.current;
@@ -63,15 +83,18 @@ export function ChartTextEditor({ value, onChange, problem, problemSource = "liv
           aria-hidden="true"
           className={cx("select-none overflow-hidden border-r border-paper-dim bg-paper-dim px-2 py-2 text-right font-mono text-sm text-ink-muted", LINE)}
         >
-          {Array.from({ length: lines }, (_, i) => (
-            <div
-              key={i}
-              className={problem?.line === i + 1 ? "bg-red-800 font-bold text-white" : undefined}
-              data-testid={problem?.line === i + 1 ? "chart-text-problem-line" : undefined}
-            >
-              {i + 1}
-            </div>
-          ))}
+          <div className="relative">
+            <pre className={cx("m-0 font-mono", LINE)}>{numbers}</pre>
+            {problemLine > 0 && problemLine <= lines ? (
+              <div
+                className={cx("absolute inset-x-0 bg-red-800 font-bold text-white", LINE)}
+                style={{ top: `${(problemLine - 1) * 1.5}rem` }}
+                data-testid="chart-text-problem-line"
+              >
+                {problemLine}
+              </div>
+            ) : null}
+          </div>
         </div>
         <textarea
           ref={area}

@@ -8,6 +8,7 @@ import { Notice } from "@/components/ui/Notice";
 import { PageColumn } from "@/components/ui/Page";
 import { useBandCharts, useMembership, useMyBands } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
+import { ArchivedCharts } from "./ArchivedCharts";
 import { DigestButton } from "./DigestButton";
 import { LibraryControls } from "./LibraryControls";
 import { LibraryTable } from "./LibraryTable";
@@ -85,6 +86,7 @@ export function LibraryScreen() {
           <LibraryTable bandId={bandId} charts={shown} query={query} canEdit={canEdit} onSort={onSort} />
         )}
       </div>
+      {canEdit ? <ArchivedCharts bandId={bandId} /> : null}
     </PageColumn>
   );
 }

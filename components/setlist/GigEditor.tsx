@@ -6,9 +6,10 @@ import { Button } from "@/components/ui/Button";
 import { Field, SelectField, TextAreaField } from "@/components/ui/Field";
 import { Notice } from "@/components/ui/Notice";
 import type { LocalChart, LocalSetlist } from "@/lib/offline/types";
-import { checkArrangement, groupBySet, MAX_SETS, renumber, type SetlistEntry } from "@/lib/setlist";
+import { checkArrangement, groupBySet, MAX_SETS, renumber, SetMinutesSchema, type SetlistEntry } from "@/lib/setlist";
 import { newId, saveSetlist, type SaveOutcome } from "./data";
 import { fromLocalInput, toLocalInput } from "./datetime";
+import { SetLength } from "./SetLength";
 import { SetTunes, type TuneInfo } from "./SetTunes";
 
 export interface Draft {
@@ -16,6 +17,7 @@ export interface Draft {
   startsAt: string | null;
   venue: string;
   notes: string;
+  setMinutes: (number | null)[];
   entries: SetlistEntry[];
 }
 
@@ -25,6 +27,10 @@ interface Props {
   initial: SetlistEntry[];
   charts: LocalChart[];
   openHref?: (e: SetlistEntry) => string;
+  /** The gig's time as typed, saved or not (the share panel's end follows it). */
+  onStartsAt?: (startsAt: string | null) => void;
+  /** A new set list was stored for the first time. */
+  onFirstSave?: () => void;
 }
 
 /**
@@ -43,8 +49,10 @@ export function GigEditorHost(props: Props) {
   return <GigEditor key={generation} {...props} note={note} onNote={setNote} onDirty={setDirty} />;
 }
 
-function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, onDirty }: Props & { note: string; onNote: (n: string) => void; onDirty: (d: boolean) => void }) {
-  const [draft, setDraft] = useState<Draft>({ name: setlist.name, startsAt: setlist.startsAt, venue: setlist.venue, notes: setlist.notes, entries: initial });
+function GigEditor({ bandId, setlist, initial, charts, openHref, onStartsAt, onFirstSave, note, onNote, onDirty }: Props & { note: string; onNote: (n: string) => void; onDirty: (d: boolean) => void }) {
+  const [draft, setDraft] = useState<Draft>({
+    name: setlist.name, startsAt: setlist.startsAt, venue: setlist.venue, notes: setlist.notes, setMinutes: setlist.setMinutes ?? [], entries: initial,
+  });
   const [extraSets, setExtraSets] = useState(0);
   const [dirty, setDirtyHere] = useState(false);
   const setDirty = (d: boolean) => {
@@ -60,9 +68,24 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
   const highestSet = draft.entries.reduce((n, e) => Math.max(n, e.setNumber), 1);
   const setCount = Math.min(MAX_SETS, Math.max(highestSet, 1 + extraSets));
   const bySet = new Map(groupBySet(draft.entries).map((s) => [s.setNumber, s.entries]));
-  const problems = draft.entries.flatMap((e) => checkArrangement(tunes.get(e.chartId)?.chart ?? null, e).issues.map((i) => `${tunes.get(e.chartId)?.title ?? "A tune"}: ${i.message}`));
+  const problems = [
+    ...draft.entries.flatMap((e) => checkArrangement(tunes.get(e.chartId)?.chart ?? null, e).issues.map((i) => `${tunes.get(e.chartId)?.title ?? "A tune"}: ${i.message}`)),
+    ...setMinutesProblems(draft.setMinutes),
+  ];
+  // A disabled Save always says why.
+  const blocked = !draft.name.trim()
+    ? "Give the set list a name to save it."
+    : problems.length > 0
+      ? `Fix ${problems.length === 1 ? "the problem" : `the ${problems.length} problems`} listed below to save.`
+      : null;
+  function setTarget(setNumber: number, minutes: number | null) {
+    const next = Array.from({ length: Math.max(draft.setMinutes.length, setNumber) }, (_, i) => draft.setMinutes[i] ?? null);
+    next[setNumber - 1] = minutes;
+    update({ setMinutes: next });
+  }
 
   function update(patch: Partial<Draft>) {
+    if ("startsAt" in patch) onStartsAt?.(patch.startsAt ?? null);
     setDraft((d) => ({ ...d, ...patch }));
     setDirty(true);
     setOutcome(null);
@@ -79,7 +102,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
     const chartId = adding[setNumber] ?? "";
     if (!chartId) return;
     const position = (bySet.get(setNumber) ?? []).length;
-    setEntries((all) => [...all, { id: newId(), chartId, setNumber, position, key: null, tempo: null, intro: null, ending: null, soloOrder: "", notes: "" }]);
+    setEntries((all) => [...all, { id: newId(), chartId, setNumber, position, key: null, tempo: null, intro: null, ending: null, soloOrder: "", choruses: 1, straightIn: false, notes: "" }]);
     setAdding((a) => ({ ...a, [setNumber]: "" }));
   }
 
@@ -91,6 +114,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
       if (r.status === "saved" || r.status === "queued") {
         onNote(r.status === "saved" ? "Saved." : "Saved on this device; it goes to the band when you have signal.");
         setDirty(false);
+        if (setlist.revision === 0) onFirstSave?.();
       }
     } finally {
       setSaving(false);
@@ -103,7 +127,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
     <div className="flex flex-col gap-6">
       <section aria-labelledby="gig-details" className="grid gap-4 sm:grid-cols-2">
         <h2 id="gig-details" className="sr-only">Gig details</h2>
-        <Field label="Name" value={draft.name} maxLength={120} required onChange={(e) => update({ name: e.target.value })} data-testid="gig-name" />
+        <Field label="Name" value={draft.name} maxLength={120} required placeholder="Friday at the harbour bar" onChange={(e) => update({ name: e.target.value })} data-testid="gig-name" />
         <Field
           label="Date and time (your time zone)"
           type="datetime-local"
@@ -118,6 +142,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
       {Array.from({ length: setCount }, (_, i) => i + 1).map((n) => (
         <section key={n} aria-labelledby={`set-${n}`} className="rounded-lg border border-ink-soft bg-paper-dim p-4" data-testid={`set-${n}`}>
           <h2 id={`set-${n}`} className="mb-3 text-xl font-bold">Set {n}</h2>
+          <SetLength setNumber={n} entries={bySet.get(n) ?? []} tunes={tunes} target={draft.setMinutes[n - 1] ?? null} onTarget={(m) => setTarget(n, m)} />
           <SetTunes
             setNumber={n}
             setCount={setCount}
@@ -154,12 +179,17 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
       ) : null}
 
       <div className="sticky bottom-0 flex flex-wrap items-center gap-3 border-t border-ink-soft bg-paper py-3">
-        <Button onClick={save} disabled={saving || !draft.name.trim() || problems.length > 0} data-testid="save-setlist">
+        <Button onClick={save} disabled={saving || blocked !== null} aria-describedby={blocked ? "save-blocked" : undefined} data-testid="save-setlist">
           {saving ? "Saving…" : "Save set list"}
         </Button>
         <span aria-live="polite" className="text-sm" data-testid="save-state">
           {dirty ? "Unsaved changes." : note}
         </span>
+        {blocked ? (
+          <span id="save-blocked" className="text-sm font-semibold text-red-800" data-testid="save-blocked">
+            {blocked}
+          </span>
+        ) : null}
       </div>
       {problems.length > 0 ? (
         <Notice kind="error" title="Fix these before saving" testId="setlist-problems">
@@ -182,4 +212,10 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, note, onNote, o
 /** Keeps set order first, then the order given inside each set. */
 function playOrderBySet(entries: SetlistEntry[]): SetlistEntry[] {
   return [...entries].sort((a, b) => a.setNumber - b.setNumber || a.position - b.position);
+}
+
+/** The set lengths refused with the server's own words ("A set runs at least 5 minutes"). */
+function setMinutesProblems(minutes: (number | null)[]): string[] {
+  const r = SetMinutesSchema.safeParse(minutes);
+  return r.success ? [] : r.error.issues.map((i) => `Set ${Number(i.path[0] ?? 0) + 1} length: ${i.message}`);
 }

@@ -7,7 +7,7 @@ import { Bandstand, type BandstandTune } from "@/components/bandstand/Bandstand"
 import { Notice } from "@/components/ui/Notice";
 import { useBandRoute } from "@/lib/offline/route";
 import { isInstrumentId } from "@/lib/music/instruments";
-import { endingInWords, introInWords, playOrder, type SetlistEntry } from "@/lib/setlist";
+import { endingInWords, entryIntro, entryIntroInWords, playOrder, type SetlistEntry } from "@/lib/setlist";
 import { useBookCharts, useMyMembership, useSetlist } from "./data";
 import { useTuneMarks } from "@/components/marks/useBarMarks";
 
@@ -22,7 +22,7 @@ export function tuneHeading(e: SetlistEntry, title: string, chartKey: string, ch
     `Set ${e.setNumber} · ${e.position + 1}. ${title}`,
     `Key ${prettyKey(e.key ?? chartKey)}`,
     tempo ? `♩ = ${tempo}` : "",
-    `Intro: ${introInWords(e.intro)}`,
+    `Intro: ${entryIntroInWords(e)}`,
     e.ending ? `End: ${endingInWords(e.ending)}` : "",
   ]
     .filter(Boolean)
@@ -53,11 +53,11 @@ export function PlaySet() {
           {
             chart: { ...c.body, tempo: e.tempo ?? c.body.tempo },
             key: e.key,
-            intro: e.intro ?? undefined,
+            intro: entryIntro(e),
             label: tuneHeading(e, c.title, c.body.key, c.body.tempo),
             next: nextTitle ? `Next: ${nextTitle}` : undefined,
             nextTitle,
-            introText: introInWords(e.intro),
+            introText: entryIntroInWords(e),
             marks: marks.get(e.chartId),
           },
         ];

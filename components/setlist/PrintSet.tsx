@@ -11,7 +11,7 @@ import { Notice } from "@/components/ui/Notice";
 import { INSTRUMENT_SHORT } from "@/components/ui/labels";
 import type { InstrumentId } from "@/lib/validation/common";
 import { useBandRoute } from "@/lib/offline/route";
-import { endingInWords, groupBySet, introInWords, playOrder, SHARING_CAUTION, type SetlistEntry } from "@/lib/setlist";
+import { endingInWords, entryIntro, entryIntroInWords, groupBySet, playOrder, SHARING_CAUTION, type SetlistEntry } from "@/lib/setlist";
 import { useBookCharts, useSetlist } from "./data";
 import { gigWhen } from "./datetime";
 
@@ -64,7 +64,7 @@ export function PrintSet() {
                         <span className="font-bold">{i + 1}. {c?.title ?? "?"}</span>{" "}
                         <span className="whitespace-nowrap">– {prettyKey(e.key ?? c?.concertKey ?? "")}</span>
                         <span className="block text-[0.55em] leading-snug">
-                          Intro: {introInWords(e.intro)}
+                          Intro: {entryIntroInWords(e)}
                           {e.tempo ? ` · ♩ = ${e.tempo}` : ""}
                           {e.ending ? ` · End: ${endingInWords(e.ending)}` : ""}
                         </span>
@@ -88,7 +88,7 @@ function PartsJob({ entries, charts, instrument }: { entries: SetlistEntry[]; ch
         const c = charts.get(e.chartId);
         if (!c) return [];
         try {
-          return [{ id: e.id, title: c.title, ...buildPerformance({ chart: c.body, instrument, key: e.key, intro: e.intro }) }];
+          return [{ id: e.id, title: c.title, ...buildPerformance({ chart: c.body, instrument, key: e.key, intro: entryIntro(e) }) }];
         } catch {
           return [];
         }

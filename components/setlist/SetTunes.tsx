@@ -17,7 +17,7 @@ import Link from "next/link";
 import { useState } from "react";
 import { Button } from "@/components/ui/Button";
 import type { Chart } from "@/lib/chart/model";
-import { endingInWords, introInWords, type SetlistEntry } from "@/lib/setlist";
+import { endingInWords, entryIntroInWords, formatTuneLength, tuneTiming, type SetlistEntry } from "@/lib/setlist";
 import { TuneArrangement } from "./TuneArrangement";
 
 export interface TuneInfo {
@@ -48,6 +48,7 @@ function Row({ entry, index, props }: { entry: SetlistEntry; index: number; prop
   const [open, setOpen] = useState(false);
   const tune = props.tunes.get(entry.chartId);
   const title = titleOf(props.tunes, entry);
+  const seconds = tune?.chart ? tuneTiming(tune.chart, entry).seconds : null;
   const move = (to: number) => props.onReorder(arrayMove(props.entries, index, to));
   return (
     <li
@@ -75,8 +76,9 @@ function Row({ entry, index, props }: { entry: SetlistEntry; index: number; prop
           <p className="font-semibold">{title}</p>
           <p className="text-sm text-ink-muted">
             Key {entry.key ?? tune?.chart?.key ?? "as written"}
-            {entry.tempo ? ` · ♩ = ${entry.tempo}` : ""} · Intro: {introInWords(entry.intro)} · Ending: {endingInWords(entry.ending)}
-            {entry.soloOrder ? ` · Solos: ${entry.soloOrder}` : ""}
+            {entry.tempo ? ` · ♩ = ${entry.tempo}` : ""} · Intro: {entryIntroInWords(entry)} · Ending: {endingInWords(entry.ending)}
+            {entry.soloOrder ? ` · Solos: ${entry.soloOrder}${entry.choruses > 1 ? ` (${entry.choruses} choruses each)` : ""}` : ""}
+            <span data-testid="tune-length">{seconds !== null ? ` · about ${formatTuneLength(seconds)}` : " · no tempo, length unknown"}</span>
           </p>
           {entry.notes ? <p className="text-sm">{entry.notes}</p> : null}
         </div>

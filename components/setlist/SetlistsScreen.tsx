@@ -2,12 +2,11 @@
 // The band's gigs, newest first, from the local book. Leaders and arrangers start a new one here.
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { useState } from "react";
 import { Button } from "@/components/ui/Button";
 import { Notice } from "@/components/ui/Notice";
 import { PageColumn, PageTitle } from "@/components/ui/Page";
 import { useBandRoute } from "@/lib/offline/route";
-import { canEditSetlists, newId, saveSetlist, useMyMembership, useSetlistEntryCounts, useSetlists } from "./data";
+import { canEditSetlists, newId, useMyMembership, useSetlistEntryCounts, useSetlists } from "./data";
 import { gigWhen } from "./datetime";
 
 export function SetlistsScreen() {
@@ -16,20 +15,13 @@ export function SetlistsScreen() {
   const setlists = useSetlists(bandId);
   const counts = useSetlistEntryCounts(bandId);
   const membership = useMyMembership(bandId);
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string | null>(null);
   if (!bandId) return null;
   const base = `/bands/${encodeURIComponent(bandId)}/setlists`;
   const editable = canEditSetlists(membership);
 
-  async function create() {
-    setBusy(true);
-    setError(null);
-    const id = newId();
-    const r = await saveSetlist(bandId!, id, 0, { name: "New gig", startsAt: null, venue: "", notes: "" }, []);
-    setBusy(false);
-    if (r.status === "saved" || r.status === "queued") router.push(`${base}/${encodeURIComponent(id)}`);
-    else setError(r.message);
+  // Opens an empty draft; the set list is stored only when the leader saves it there.
+  function create() {
+    router.push(`${base}/${encodeURIComponent(newId())}?new=1`);
   }
 
   return (
@@ -37,12 +29,11 @@ export function SetlistsScreen() {
       <div className="flex flex-wrap items-end justify-between gap-4">
         <PageTitle lead={membership?.role === "sub" ? "The set lists shared with you." : "Gigs and their sets, on this device for the bandstand."}>Set lists</PageTitle>
         {editable ? (
-          <Button onClick={create} disabled={busy} data-testid="new-setlist">
+          <Button onClick={create} data-testid="new-setlist">
             New set list
           </Button>
         ) : null}
       </div>
-      {error ? <Notice kind="error">{error}</Notice> : null}
       {setlists === undefined ? (
         <p className="py-8 text-center text-ink-muted">Opening the set lists…</p>
       ) : setlists.length === 0 ? (

@@ -22,8 +22,8 @@ const STATE_WORDS: Record<ShareState, string> = {
   revoked: "withdrawn",
 };
 
-/** The default end: the morning after the gig (or tomorrow). */
-function defaultEnd(startsAt: string | null): string {
+/** The default end: 06:00 the morning after the gig (or after now, with no date yet). */
+export function defaultEnd(startsAt: string | null): string {
   const base = startsAt ? new Date(startsAt) : new Date();
   const end = new Date(base.getTime() + 24 * 3_600_000);
   end.setHours(6, 0, 0, 0);
@@ -34,7 +34,9 @@ export function SharePanel({ bandId, setlistId, startsAt }: { bandId: string; se
   const base = `/api/bands/${encodeURIComponent(bandId)}/setlists/${encodeURIComponent(setlistId)}/shares`;
   const [shares, setShares] = useState<ShareRow[] | null>(null);
   const [email, setEmail] = useState("");
-  const [until, setUntil] = useState(() => toLocalInput(defaultEnd(startsAt)));
+  // Until the leader picks an end, it follows the gig's time as shown on the screen (saved or not).
+  const [picked, setPicked] = useState<string | null>(null);
+  const until = picked ?? toLocalInput(defaultEnd(startsAt));
   const [message, setMessage] = useState("");
   const [busy, setBusy] = useState(false);
   const [result, setResult] = useState<{ kind: "success" | "error"; text: string; field?: string } | null>(null);
@@ -93,7 +95,7 @@ export function SharePanel({ bandId, setlistId, startsAt }: { bandId: string; se
       </p>
       <form onSubmit={share} className="grid gap-3 sm:grid-cols-2" noValidate>
         <Field label="Sub's e-mail" type="email" autoComplete="email" required value={email} onChange={(e) => setEmail(e.target.value)} error={result?.field === "email" ? result.text : null} data-testid="share-email" />
-        <Field label="Access ends (your time zone)" type="datetime-local" required value={until} onChange={(e) => setUntil(e.target.value)} error={result?.field === "expiresAt" ? result.text : null} data-testid="share-until" />
+        <Field label="Access ends (your time zone)" type="datetime-local" required value={until} onChange={(e) => setPicked(e.target.value)} error={result?.field === "expiresAt" ? result.text : null} data-testid="share-until" />
         <TextAreaField label="A line for the e-mail (optional)" className="sm:col-span-2" rows={2} maxLength={500} value={message} onChange={(e) => setMessage(e.target.value)} />
         <div className="sm:col-span-2">
           <Button type="submit" disabled={busy || !email} data-testid="share-send">

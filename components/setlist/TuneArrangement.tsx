@@ -38,6 +38,26 @@ function defaultEnding(kind: EndingKind): EndingChoice {
   }
 }
 
+function keyWords(k: string): string {
+  return k.replace("b", "♭").replace("#", "♯");
+}
+
+/**
+ * One "as written" entry only: the chart's own intro when it has one (with a way to skip it), else
+ * straight in at the top. The composed kind is that first entry, never listed twice.
+ */
+function introOptions(chart: Chart | null): { value: string; label: string }[] {
+  const kinds = INTRO_KINDS.filter((k) => k !== "composed").map((k) => ({ value: k, label: describeIntroKind(k) }));
+  if (chart?.intro && chart.intro.bars.length > 0) {
+    return [
+      { value: "", label: `The chart's own intro (${chart.intro.bars.length} bars)` },
+      { value: "none", label: "No intro, straight in at the top" },
+      ...kinds,
+    ];
+  }
+  return [{ value: "", label: "No intro, straight in at the top" }, ...kinds];
+}
+
 function num(v: string): number | undefined {
   const n = Number(v);
   return v.trim() === "" || !Number.isFinite(n) ? undefined : Math.round(n);
@@ -62,7 +82,10 @@ export function TuneArrangement({ entry, chart, onChange }: { entry: SetlistEntr
         error={err("key")}
         hint={chart ? `The chart is in ${chart.key}. Every part is transposed from this key.` : undefined}
         onChange={(e) => onChange({ ...entry, key: e.target.value || null })}
-        options={[{ value: "", label: chart ? `As written (${chart.key})` : "As written" }, ...keys.map((k) => ({ value: k, label: k.replace("b", "♭").replace("#", "♯") }))]}
+        options={[
+          { value: "", label: chart ? `As written (${keyWords(chart.key)})` : "As written" },
+          ...keys.filter((k) => k !== chart?.key).map((k) => ({ value: k, label: keyWords(k) })),
+        ]}
         data-testid="tune-key"
       />
       <Field
@@ -82,14 +105,15 @@ export function TuneArrangement({ entry, chart, onChange }: { entry: SetlistEntr
         <div className="grid gap-3 sm:grid-cols-2">
           <SelectField
             label="How the tune starts"
-            value={intro?.kind ?? ""}
+            value={entry.straightIn ? "none" : intro && intro.kind !== "composed" ? intro.kind : ""}
             error={err("intro.kind")}
             onChange={(e) => {
-              const kind = e.target.value as IntroKind | "";
+              const kind = e.target.value as IntroKind | "none" | "";
               // A new kind starts from its own defaults, not the options of the previous one.
-              onChange({ ...entry, intro: kind ? (kind === "turnaround" ? { kind, variant: "I-vi-ii-V" } : { kind }) : null });
+              const next: IntroChoice | null = kind === "" || kind === "none" ? null : kind === "turnaround" ? { kind, variant: "I-vi-ii-V" } : { kind };
+              onChange({ ...entry, intro: next, straightIn: kind === "none" });
             }}
-            options={[{ value: "", label: chart?.intro ? "As written (the chart's own intro)" : "As written (straight in at the top)" }, ...INTRO_KINDS.map((k) => ({ value: k, label: describeIntroKind(k) }))]}
+            options={introOptions(chart)}
             data-testid="intro-kind"
           />
           {intro && intro.kind !== "composed" && intro.kind !== "solo-chorus" ? (
@@ -105,7 +129,7 @@ export function TuneArrangement({ entry, chart, onChange }: { entry: SetlistEntr
               data-testid="intro-bars"
             />
           ) : null}
-          {intro ? (
+          {intro && intro.kind !== "composed" ? (
             <Field
               label="Times through"
               type="number"
@@ -207,6 +231,17 @@ export function TuneArrangement({ entry, chart, onChange }: { entry: SetlistEntr
         maxLength={200}
         onChange={(e) => onChange({ ...entry, soloOrder: e.target.value })}
         data-testid="tune-solos"
+      />
+      <Field
+        label="Choruses each soloist takes"
+        type="number"
+        inputMode="numeric"
+        min={1}
+        max={16}
+        value={entry.choruses}
+        hint="Counts toward the set's length."
+        onChange={(e) => onChange({ ...entry, choruses: Math.min(16, Math.max(1, num(e.target.value) ?? 1)) })}
+        data-testid="tune-choruses"
       />
       <Field
         label="Note for the band"

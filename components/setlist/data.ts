@@ -97,15 +97,18 @@ export function canEditSetlists(m: LocalMembership | null | undefined): boolean 
   return m?.role === "leader" || m?.role === "arranger";
 }
 
-function toInput(s: Pick<LocalSetlist, "name" | "startsAt" | "venue" | "notes">, entries: readonly SetlistEntry[]): SetlistInput {
+export type SetlistMeta = Pick<LocalSetlist, "name" | "startsAt" | "venue" | "notes" | "setMinutes">;
+
+function toInput(s: SetlistMeta, entries: readonly SetlistEntry[]): SetlistInput {
   return {
     name: s.name,
     startsAt: s.startsAt,
     venue: s.venue,
     notes: s.notes,
+    setMinutes: s.setMinutes ?? [],
     entries: entries.map((e) => ({
       id: e.id, chartId: e.chartId, setNumber: e.setNumber, position: e.position, key: e.key, tempo: e.tempo,
-      intro: e.intro, ending: e.ending, soloOrder: e.soloOrder, notes: e.notes,
+      intro: e.intro, ending: e.ending, soloOrder: e.soloOrder, choruses: e.choruses, straightIn: e.straightIn, notes: e.notes,
     })),
   };
 }
@@ -138,7 +141,7 @@ export async function saveSetlist(
   bandId: string,
   id: string,
   revision: number,
-  meta: Pick<LocalSetlist, "name" | "startsAt" | "venue" | "notes">,
+  meta: SetlistMeta,
   entries: readonly SetlistEntry[],
 ): Promise<SaveOutcome> {
   const input = toInput(meta, entries);

@@ -4,12 +4,16 @@ import * as m001 from "./001_initial";
 import * as m002 from "./002_sync_feed_index";
 import * as m003 from "./003_band_digests";
 import * as m004 from "./004_sync_feed_cover";
+import * as m005 from "./005_security";
+import * as m007 from "./007_desk_gig_lengths_archive";
 
 export const migrations: Record<string, Migration> = {
   "001_initial": m001,
   "002_sync_feed_index": m002,
   "003_band_digests": m003,
   "004_sync_feed_cover": m004,
+  "005_security": m005,
+  "007_desk_gig_lengths_archive": m007,
 };
 
 export const migrationProvider: MigrationProvider = {

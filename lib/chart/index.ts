@@ -1,6 +1,6 @@
 // Pedalpoint's chart core: the chart model, its text format, intros and what each player reads.
 export * from "./model";
-export { parseChartText, METADATA_FIELDS } from "./text-parse";
+export { parseChartText, assertChartTextSize, METADATA_FIELDS, MAX_CHART_TEXT_CHARS, MAX_CHART_TEXT_LINES } from "./text-parse";
 export { ChartTextError } from "./text-error";
 export { serializeChart, BARS_PER_LINE } from "./text-serialize";
 export { readMelodyNote, formatMelodyNote, noteQuarters, barQuarters } from "./melody";

@@ -9,6 +9,24 @@ import { METADATA_FIELDS, readField, type Field, type Meta } from "./text-fields
 
 export { ChartTextError, METADATA_FIELDS };
 
+// A real chart is a few hundred lines at most. Longer texts are refused before any parsing so one
+// paste or one sync push cannot buy seconds of CPU (the form's and the routes' zod limits agree).
+export const MAX_CHART_TEXT_CHARS = 50_000;
+export const MAX_CHART_TEXT_LINES = 5_000;
+
+/** Throws when the text is longer than a chart can be; costs at most one pass, stopping early. */
+export function assertChartTextSize(text: string): void {
+  if (text.length > MAX_CHART_TEXT_CHARS) {
+    throw new ChartTextError(1, 1, `The chart text is too long (${MAX_CHART_TEXT_CHARS.toLocaleString("en")} characters at most)`);
+  }
+  let lines = 1;
+  for (let at = text.indexOf("\n"); at >= 0; at = text.indexOf("\n", at + 1)) {
+    if (++lines > MAX_CHART_TEXT_LINES) {
+      throw new ChartTextError(MAX_CHART_TEXT_LINES + 1, 1, `The chart text has too many lines (${MAX_CHART_TEXT_LINES.toLocaleString("en")} at most)`);
+    }
+  }
+}
+
 // `Name:` starts a line; a colon right before `|` is a repeat end (`C7:|`) unless it is `Name:|:`.
 const HEADER_RE = /^(\s*)([A-Za-z][\w '’&.()\-]{0,60}?)\s*:(?!\|(?!:))(.*)$/;
 
@@ -87,14 +105,17 @@ function buildBar(tok: Extract<BarToken, { kind: "bar" }>, meter: Meter, line: n
 function settleEndings(sec: PendingSection): void {
   let active: number | null = null;
   const runs: { n: number; last: PendingBar }[] = [];
+  // Which ending numbers occur, so each check is one look-up (a long section stays linear).
+  const numbers = new Set<number>();
   for (const p of sec.bars) {
     if (p.bar.repeatStart) active = null;
     if (p.endingStart !== null) {
       const n = p.endingStart;
-      if (n > 1 && !runs.some((r) => r.n === n - 1)) {
+      if (n > 1 && !numbers.has(n - 1)) {
         throw new ChartTextError(p.line, p.endingColumn, `Ending [${n} comes without an ending [${n - 1} before it in this section`);
       }
       active = n;
+      numbers.add(n);
       runs.push({ n, last: p });
     }
     p.bar.ending = active;
@@ -102,7 +123,7 @@ function settleEndings(sec: PendingSection): void {
     if (p.bar.repeatEnd || p.endingClose) active = null;
   }
   for (const r of runs) {
-    if (runs.some((o) => o.n === r.n + 1) && !r.last.bar.repeatEnd) {
+    if (numbers.has(r.n + 1) && !r.last.bar.repeatEnd) {
       throw new ChartTextError(r.last.line, r.last.column, `Ending [${r.n} must end with :| so the band goes back for the next time through`);
     }
   }
@@ -147,6 +168,7 @@ function readMelodyLine(text: string, offset: number, line: number, sec: Pending
 }
 
 export function parseChartText(text: string): Chart {
+  assertChartTextSize(text);
   const lines = text.replace(/\r\n?/g, "\n").split("\n").map(stripComment);
   const meta: Meta = {};
   const seen = new Map<Field, number>();

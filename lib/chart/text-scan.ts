@@ -32,6 +32,16 @@ interface Open {
   byBarline: boolean;
 }
 
+// Sticky patterns read at the cursor without copying the rest of the line (a slice per mark would
+// make a line of many marks cost its length squared).
+const TIMES_RE = /\s*[x×](\d{1,2})(?![\w#])/y;
+const ENDING_RE = /\[(\d)\.?/y;
+
+function readAt(re: RegExp, body: string, at: number): RegExpExecArray | null {
+  re.lastIndex = at;
+  return re.exec(body);
+}
+
 export function scanBarLine(body: string, offset: number, line: number): ScannedBar[] {
   const bars: ScannedBar[] = [];
   let cur: Open | null = null;
@@ -73,7 +83,7 @@ export function scanBarLine(body: string, offset: number, line: number): Scanned
       const at = i;
       i += 2;
       let times: number | undefined;
-      const t = /^\s*[x×](\d{1,2})(?![\w#])/.exec(body.slice(i));
+      const t = readAt(TIMES_RE, body, i);
       if (t) {
         times = Number(t[1]);
         if (times < 2 || times > 16) fail(at, `A repeat is played 2 to 16 times (":|x3" means three times through)`);
@@ -112,7 +122,7 @@ export function scanBarLine(body: string, offset: number, line: number): Scanned
       continue;
     }
     if (ch === "[") {
-      const m = /^\[(\d)\.?/.exec(body.slice(i));
+      const m = readAt(ENDING_RE, body, i);
       if (!m) fail(i, "An ending is written [1, [2 … at the start of its bar");
       const c = cur as Open | null;
       if (c && c.words.length > 0) fail(i, `An ending (${m![0]}) goes at the start of a bar, right after the |`);

@@ -29,4 +29,4 @@ export async function sendMail(message: MailMessage): Promise<void> {
   await transport().sendMail({ from: MAIL_FROM, ...message });
 }
 
-export { inviteMail, signInLinkMail } from "./templates";
+export { accountExistsMail, inviteMail, signInLinkMail } from "./templates";

@@ -63,6 +63,21 @@ export function signInLinkMail(p: { to: string; link: string; minutes: number })
   };
 }
 
+/** Sent instead of making a second account when someone signs up with an address that has one. */
+export function accountExistsMail(p: { to: string; link: string; minutes: number }): MailMessage {
+  const lines = [
+    `Someone, perhaps you, tried to create a Pedalpoint account with this address. It already has one, so nothing was changed.`,
+    `To get in, use this sign-in link. It works once and expires in ${p.minutes} minutes.`,
+  ];
+  const footer = "If it was not you, you can ignore this e-mail; nobody can sign in without the link.";
+  return {
+    to: p.to,
+    subject: "You already have a Pedalpoint account",
+    text: `${lines.join("\n\n")}\n\nSign in:\n${p.link}\n\n${footer}\n`,
+    html: layout("You already have an account", lines, { label: "Sign in", href: p.link }, footer),
+  };
+}
+
 function formatWhen(iso: string): string {
   const d = new Date(iso);
   return `${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;

@@ -48,6 +48,10 @@ export interface WireSetlistEntry {
   ending: unknown;
   tempo: number | null;
   soloOrder: string;
+  /** Missing on rows stored before choruses were counted: read as 1. */
+  choruses?: number;
+  /** Missing on older rows: read as false. */
+  straightIn?: boolean;
   notes: string;
 }
 
@@ -58,6 +62,8 @@ export interface WireSetlist {
   startsAt: string | null;
   venue: string;
   notes: string;
+  /** The leader's length for each set in minutes (index 0 = set 1); missing on older rows. */
+  setMinutes?: (number | null)[];
   revision: number;
   updatedAt: string;
   updatedBy: string;

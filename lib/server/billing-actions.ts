@@ -5,6 +5,7 @@ import type Stripe from "stripe";
 import type { Database } from "@/db/schema";
 import { requireMember, type Actor } from "./access";
 import { applySubscription, effectivePlan, paymentClient, paymentConfig, saveRow, subscriptionRow } from "./billing-store";
+import { isMissing } from "./billing-webhook";
 import { AppError } from "./errors";
 import { appUrl } from "./tokens";
 
@@ -42,7 +43,13 @@ export async function startCheckout(db: Kysely<Database>, actor: Actor | null, b
 export async function confirmCheckout(db: Kysely<Database>, actor: Actor | null, bandId: string, sessionId: string): Promise<void> {
   await requireMember(db, actor, bandId, "billing");
   const stripe = paymentClient();
-  const session = await stripe.checkout.sessions.retrieve(sessionId);
+  let session: Stripe.Checkout.Session;
+  try {
+    session = await stripe.checkout.sessions.retrieve(sessionId);
+  } catch (err) {
+    if (isMissing(err)) throw new AppError("not_found", "That checkout was not found.");
+    throw err;
+  }
   const owner = session.metadata?.bandId ?? session.client_reference_id;
   if (owner !== bandId) throw new AppError("not_found", "That checkout was not found.");
   if (session.status !== "complete" || !session.subscription) return;

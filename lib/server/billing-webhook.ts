@@ -1,6 +1,9 @@
 import "server-only";
 // Events from the payment provider. Nothing is trusted before the signature is checked with the
 // SDK's verifier (HMAC of timestamp and body; events older than 5 minutes are refused as replays).
+// Even a signed event is only a hint: what the band gets comes from the provider's own records
+// (the checkout session and the subscription looked up through the SDK), never from the event's
+// copy, so an event about a subscription the provider does not have changes nothing.
 import type { Kysely } from "kysely";
 import type Stripe from "stripe";
 import type { Database } from "@/db/schema";
@@ -30,11 +33,13 @@ export async function handleWebhook(db: Kysely<Database>, payload: string, signa
   }
   switch (event.type) {
     case "checkout.session.completed": {
-      const session = event.data.object;
+      const session = await fromProvider(() => stripe.checkout.sessions.retrieve(event.data.object.id));
+      if (!session) return { received: true, type: event.type, bandId: null };
       const bandId = session.metadata?.bandId ?? session.client_reference_id ?? null;
-      if (!bandId || !session.subscription) return { received: true, type: event.type, bandId };
+      if (!bandId || !session.subscription || session.status !== "complete") return { received: true, type: event.type, bandId: null };
       const subId = typeof session.subscription === "string" ? session.subscription : session.subscription.id;
-      const sub = await stripe.subscriptions.retrieve(subId);
+      const sub = await fromProvider(() => stripe.subscriptions.retrieve(subId));
+      if (!sub) return { received: true, type: event.type, bandId: null };
       await applySubscription(db, bandId, sub);
       await sendReceipt(db, stripe, bandId, session, sub);
       return { received: true, type: event.type, bandId };
@@ -42,10 +47,12 @@ export async function handleWebhook(db: Kysely<Database>, payload: string, signa
     case "customer.subscription.created":
     case "customer.subscription.updated":
     case "customer.subscription.deleted": {
-      const bandId = await bandFor(db, event.data.object);
-      if (!bandId) return { received: true, type: event.type, bandId };
-      // Events can arrive late and out of order: act on the subscription as it is now.
-      const sub = await latest(stripe, event.data.object);
+      // Events can arrive late and out of order, and may name anything: act on the subscription as
+      // the provider has it now, and on the band its own metadata names.
+      const sub = await fromProvider(() => stripe.subscriptions.retrieve(event.data.object.id));
+      if (!sub) return { received: true, type: event.type, bandId: null };
+      const bandId = await bandFor(db, sub);
+      if (!bandId || !(await bandExists(db, bandId))) return { received: true, type: event.type, bandId: null };
       const row = await subscriptionRow(db, bandId);
       // An event about an older subscription must not touch the band's current one.
       if (row?.subscription_id && row.subscription_id !== sub.id && effectivePlan(row) === "band") return { received: true, type: event.type, bandId };
@@ -57,13 +64,24 @@ export async function handleWebhook(db: Kysely<Database>, payload: string, signa
   }
 }
 
-async function latest(stripe: Stripe, sub: Stripe.Subscription): Promise<Stripe.Subscription> {
+/** A record from the provider; null when it has no such record. Unreachable: 503, so it retries. */
+async function fromProvider<T>(look: () => Promise<T>): Promise<T | null> {
   try {
-    return await stripe.subscriptions.retrieve(sub.id);
-  } catch {
-    // the provider cannot be reached: the signed event's copy is the best we have
-    return sub;
+    return await look();
+  } catch (err) {
+    if (isMissing(err)) return null;
+    console.error("payment provider look-up failed", err);
+    throw new AppError("unavailable", "The payment provider could not be reached to check this event; send it again later.");
   }
+}
+
+export function isMissing(err: unknown): boolean {
+  const e = err as { statusCode?: unknown; code?: unknown } | null;
+  return !!e && (e.statusCode === 404 || e.code === "resource_missing");
+}
+
+async function bandExists(db: Kysely<Database>, bandId: string): Promise<boolean> {
+  return Boolean(await db.selectFrom("bands").select("id").where("id", "=", bandId).executeTakeFirst());
 }
 
 async function sendReceipt(db: Kysely<Database>, stripe: Stripe, bandId: string, session: Stripe.Checkout.Session, sub: Stripe.Subscription): Promise<void> {

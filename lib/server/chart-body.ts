@@ -1,7 +1,7 @@
 import "server-only";
 // From what the form sends to what is stored: the chart text parsed into the chart model, with the
 // form's metadata fields taking precedence over the text's header lines.
-import { ChartTextError, parseChartText } from "@/lib/chart";
+import { ChartTextError, assertChartTextSize, parseChartText } from "@/lib/chart";
 import { ChartSchema, type Chart } from "@/lib/chart/model";
 import type { ChartRow } from "@/db/schema";
 import type { ChartDto, ChartInput } from "@/lib/validation/chart-input";
@@ -28,8 +28,12 @@ function parseMeter(meter: string): Chart["meter"] {
   return { beats: beats ?? 4, unit: (unit === 2 || unit === 8 ? unit : 4) as 2 | 4 | 8 };
 }
 
+// `[ \t]*`, not `\s*`: in multiline mode `\s` also eats newlines, so every blank line would rescan
+// all the blank lines after it (50,000 of them cost seconds).
+const HEADER_LINE = { title: /^[ \t]*title[ \t]*:/im, key: /^[ \t]*key[ \t]*:/im, time: /^[ \t]*time[ \t]*:/im } as const;
+
 function missingHeaderLines(input: Pick<ChartInput, "title" | "key" | "meter" | "sourceText">): string[] {
-  const has = (name: string) => new RegExp(`^\\s*${name}\\s*:`, "im").test(input.sourceText);
+  const has = (name: keyof typeof HEADER_LINE) => HEADER_LINE[name].test(input.sourceText);
   const lines: string[] = [];
   if (!has("title")) lines.push(`title: ${input.title}`);
   if (!has("key")) lines.push(`key: ${input.key}`);
@@ -40,6 +44,12 @@ function missingHeaderLines(input: Pick<ChartInput, "title" | "key" | "meter" | 
 export function prepareChart(input: Pick<ChartInput, "title" | "composer" | "key" | "meter" | "tempo" | "feel" | "sourceText">): PreparedChart {
   // The text may leave its header to the form's fields; supply the missing lines so the parser
   // knows the meter, and shift error lines back so they point into the text as written.
+  try {
+    assertChartTextSize(input.sourceText);
+  } catch (err) {
+    if (err instanceof ChartTextError) throw new AppError("unprocessable", err.message, { fields: [{ field: "sourceText", message: err.message }] });
+    throw err;
+  }
   const header = missingHeaderLines(input);
   let parsed: Chart;
   try {

@@ -1,10 +1,14 @@
 import "server-only";
-// One wrapper for every route handler: resolves the user, parses params, query and body with zod,
-// and turns AppErrors into JSON responses. Role checks happen in the use case it calls.
+// One wrapper for every route handler: refuses cross-site unsafe requests and oversized bodies,
+// counts anonymous callers against their limit, resolves the user, parses params, query and body
+// with zod, and turns AppErrors into JSON responses. Role checks happen in the use case it calls.
 import { NextResponse } from "next/server";
 import { z, type ZodType } from "zod";
+import { ready } from "@/db";
 import type { Actor } from "./access";
 import { AppError, type FieldIssue } from "./errors";
+import { consume, type LimitSpec } from "./rate-limit";
+import { assertSameSite, clientKey, DEFAULT_BODY_BYTES, readBodyText } from "./request-guard";
 import { getActor } from "./session";
 
 export function zodIssues(error: z.ZodError): FieldIssue[] {
@@ -25,10 +29,13 @@ function parseOrThrow<T>(schema: ZodType<T>, value: unknown, where: string): T {
 
 export function errorResponse(err: unknown): NextResponse {
   if (err instanceof AppError) {
-    return NextResponse.json({ error: { code: err.code, message: err.message, ...err.details } }, { status: err.status });
+    const retryAfter = err.details?.retryAfter;
+    const headers = err.code === "rate_limited" && typeof retryAfter === "number" ? { "retry-after": String(retryAfter) } : undefined;
+    return NextResponse.json({ error: { code: err.code, message: err.message, ...err.details } }, { status: err.status, headers });
   }
   console.error(err);
-  return NextResponse.json({ error: { code: "internal", message: "Something went wrong on the server. Your data was not changed." } }, { status: 500 });
+  // Said without a promise about the data: a batch may have stored part of its work before failing.
+  return NextResponse.json({ error: { code: "internal", message: "Something went wrong on the server. Try again in a moment." } }, { status: 500 });
 }
 
 interface Spec<P, Q, B> {
@@ -37,6 +44,12 @@ interface Spec<P, Q, B> {
   body?: ZodType<B>;
   /** Allow anonymous callers (sign-up, webhooks). */
   anonymous?: boolean;
+  /** Largest body this route reads (bytes); DEFAULT_BODY_BYTES unless said. */
+  maxBytes?: number;
+  /** A per-client limit counted before any other work. */
+  limit?: LimitSpec;
+  /** The route reads the body itself (uploads, signed webhooks): it gets the request untouched. */
+  rawBody?: boolean;
 }
 
 interface Ctx<P, Q, B> {
@@ -45,6 +58,10 @@ interface Ctx<P, Q, B> {
   query: Q;
   body: B;
   request: Request;
+  /** The body as text, when the route asked for `rawBody: "text"` semantics via maxBytes and no schema. */
+  text: string;
+  /** Who is asking, for per-client limits inside the use case. */
+  client: string;
 }
 
 type RouteContext = { params: Promise<Record<string, string | string[]>> };
@@ -55,6 +72,12 @@ export function route<P = Record<string, never>, Q = Record<string, never>, B = 
 ) {
   return async (request: Request, context: RouteContext): Promise<Response> => {
     try {
+      assertSameSite(request);
+      const client = clientKey(request);
+      if (spec.limit) await consume(await ready(), spec.limit, client);
+      let text = "";
+      const hasBody = !["GET", "HEAD"].includes(request.method.toUpperCase());
+      if (hasBody && !spec.rawBody) text = await readBodyText(request, spec.maxBytes ?? DEFAULT_BODY_BYTES);
       const actor = await getActor();
       if (!actor && !spec.anonymous) throw new AppError("unauthenticated", "Please sign in first.");
       const rawParams = context?.params ? await context.params : {};
@@ -65,13 +88,13 @@ export function route<P = Record<string, never>, Q = Record<string, never>, B = 
       if (spec.body) {
         let json: unknown;
         try {
-          json = await request.json();
+          json = JSON.parse(text);
         } catch {
           throw new AppError("bad_request", "The request body is not valid JSON.");
         }
         body = parseOrThrow(spec.body, json, "body");
       }
-      const result = await fn({ actor, params, query, body, request });
+      const result = await fn({ actor, params, query, body, request, text, client });
       if (result instanceof Response) return result;
       return NextResponse.json(result ?? { ok: true });
     } catch (err) {

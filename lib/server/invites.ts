@@ -64,6 +64,11 @@ export async function inviteMember(
   await requireMember(db, actor, bandId, "manageMembers");
   const me = actor as Actor;
   const data = parseInput(InviteCreateSchema, input);
+  if (data.accessExpiresAt && data.role !== "sub") {
+    throw new AppError("unprocessable", "Only a sub's access can have an end date.", {
+      fields: [{ field: "accessExpiresAt", message: "Only a sub's access can end" }],
+    });
+  }
   if (data.accessExpiresAt && new Date(data.accessExpiresAt) <= now) {
     throw new AppError("unprocessable", "The access end time must be in the future.", {
       fields: [{ field: "accessExpiresAt", message: "Choose a time in the future" }],

@@ -9,6 +9,7 @@ import { requireMember, type Actor } from "./access";
 import { recordChange } from "./changes";
 import { AppError } from "./errors";
 import { parseInput } from "./input";
+import { endAllSessions } from "./session-version";
 
 export { acceptInvite, INVITE_DAYS, inviteMember, listInvites, previewInvite, type InviteDto, type InvitePreview } from "./invites";
 
@@ -39,6 +40,7 @@ async function assertAnotherLeader(trx: Transaction<Database>, bandId: string, u
     .select((eb) => eb.fn.countAll<number>().as("n"))
     .where("band_id", "=", bandId)
     .where("role", "=", "leader")
+    .where("expires_at", "is", null)
     .where("user_id", "!=", userId)
     .executeTakeFirstOrThrow();
   if (Number(others.n) === 0) {
@@ -59,6 +61,12 @@ export async function updateMember(
     const m = await targetMembership(trx, bandId, userId);
     if (m.role === "leader" && data.role && data.role !== "leader") await assertAnotherLeader(trx, bandId, userId);
     const expiresAt = data.expiresAt === undefined ? undefined : data.expiresAt && new Date(data.expiresAt).toISOString();
+    // Only a sub's access runs out: an end date on anyone else could leave the band with no leader.
+    if (expiresAt && (data.role ?? m.role) !== "sub") {
+      throw new AppError("unprocessable", "Only a sub's access can have an end date. Make them a sub first, or leave the end date empty.", {
+        fields: [{ field: "expiresAt", message: "Only a sub's access can end" }],
+      });
+    }
     await trx
       .updateTable("memberships")
       .set({
@@ -94,6 +102,8 @@ export async function removeMember(db: Kysely<Database>, actor: Actor | null, ba
     await trx.deleteFrom("memberships").where("band_id", "=", bandId).where("user_id", "=", userId).execute();
     await recordChange(trx, { bandId, entity: "membership", entityId: userId, op: "delete" });
   });
+  // A removed member's open sessions end, so a device left signed in stops syncing at once.
+  if (!self) await endAllSessions(db, userId);
 }
 
 /** With a band: the part I read in that band. Without: my default for new bands. */

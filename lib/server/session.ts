@@ -6,17 +6,19 @@ import "server-only";
 // makes many requests in a row with the same cookie, so a verified actor is kept in memory for a
 // few seconds, keyed by the exact session cookie text. Only successful verifications are kept.
 // Consequence, by design: a deleted account (or an expired token) is refused at most
-// SESSION_CACHE_MS later; signing out clears the cookie, so it takes effect at once.
+// SESSION_CACHE_MS later in another process; a session ended in this process (sign-out, sign out
+// everywhere, password change) empties this cache at once.
 // Band membership and roles are NOT cached here: requireMember checks them on every request.
 import { getServerSession } from "next-auth";
 import { cookies } from "next/headers";
 import type { Actor } from "./access";
 import { authOptions } from "./auth-options";
+import { verifiedSessions } from "./session-cache";
 
 export const SESSION_CACHE_MS = 5_000;
 const MAX_ENTRIES = 1_000;
 
-const verified = new Map<string, { actor: Actor; until: number }>();
+const verified = verifiedSessions;
 
 /** The session cookie(s) as one key: next-auth may split a large token into `.0`, `.1`, … chunks. */
 async function sessionKey(): Promise<string | null> {

@@ -3,7 +3,7 @@ import "server-only";
 import type { Kysely, Transaction } from "kysely";
 import type { Database, SetlistEntryRow, SetlistRow } from "@/db/schema";
 import { IntroChoiceSchema } from "@/lib/chart/model";
-import { EndingChoiceSchema, type Setlist, type SetlistEntry } from "@/lib/setlist";
+import { EndingChoiceSchema, SetMinutesSchema, type Setlist, type SetlistEntry } from "@/lib/setlist";
 
 type Db = Kysely<Database> | Transaction<Database>;
 
@@ -29,6 +29,8 @@ function toEntry(r: SetlistEntryRow): SetlistEntry & { setlistId: string } {
     intro: parseJson(r.intro_json, IntroChoiceSchema),
     ending: parseJson(r.ending, EndingChoiceSchema),
     soloOrder: r.solo_order,
+    choruses: r.choruses,
+    straightIn: r.straight_in === 1,
     notes: r.notes,
   };
 }
@@ -41,6 +43,7 @@ export function toSetlist(row: SetlistRow, entries: SetlistEntryRow[]): Setlist 
     startsAt: row.starts_at,
     venue: row.venue,
     notes: row.notes,
+    setMinutes: parseJson(row.set_minutes_json, SetMinutesSchema) ?? [],
     revision: row.revision,
     updatedBy: row.updated_by,
     updatedAt: row.updated_at,

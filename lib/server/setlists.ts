@@ -118,6 +118,8 @@ function entryRow(setlistId: string, bandId: string, e: SetlistEntry): SetlistEn
     ending: e.ending ? JSON.stringify(e.ending) : null,
     tempo: e.tempo,
     solo_order: e.soloOrder,
+    choruses: e.choruses,
+    straight_in: e.straightIn ? 1 : 0,
     notes: e.notes,
   };
 }
@@ -157,6 +159,7 @@ export interface SetlistWrite {
   startsAt: string | null;
   venue: string;
   notes: string;
+  setMinutes?: (number | null)[];
   entries: SetlistEntry[];
 }
 
@@ -190,6 +193,7 @@ export async function saveSetlistUnchecked(
       starts_at: data.startsAt ? new Date(data.startsAt).toISOString() : null,
       venue: data.venue,
       notes: data.notes,
+      set_minutes_json: JSON.stringify(data.setMinutes ?? []),
       revision,
       updated_by: actorId,
       updated_at: nowIso(now),
@@ -272,6 +276,7 @@ export async function duplicateSetlist(
       startsAt: opts.startsAt !== undefined ? opts.startsAt : src.startsAt,
       venue: opts.venue ?? src.venue,
       notes: src.notes,
+      setMinutes: src.setMinutes,
       entries: src.entries.map((e) => ({
         id: newId(),
         chartId: e.chartId,
@@ -282,6 +287,8 @@ export async function duplicateSetlist(
         intro: e.intro,
         ending: e.ending,
         soloOrder: e.soloOrder,
+        choruses: e.choruses,
+        straightIn: e.straightIn,
         notes: e.notes,
       })),
     },

@@ -10,6 +10,7 @@ import { createChart, deleteChart, restoreRevision, updateChart } from "./charts
 import { AppError } from "./errors";
 import { pushAnnotationMutation, pushSetlistMutation } from "./setlist-feed";
 import { loadCharts } from "./sync-rows";
+import { IdSchema } from "@/lib/validation/common";
 
 export interface PushContext {
   db: Kysely<Database>;
@@ -46,7 +47,9 @@ async function alreadySays(db: Kysely<Database>, bandId: string, id: string, inp
 
 async function applyChart({ db, actor, bandId, mutation: m }: PushContext): Promise<number> {
   if (m.op === "delete") {
-    return (await deleteChart(db, actor, bandId, m.id, m.baseRevision ? { baseRevision: m.baseRevision } : {})).revision;
+    // A device deletes what it has seen: without a base revision the delete could wipe an edit it
+    // never saw, so it is a conflict (revision 0 never matches a stored chart).
+    return (await deleteChart(db, actor, bandId, m.id, { baseRevision: m.baseRevision ?? 0 })).revision;
   }
   if (m.op === "restore") {
     const revision = (m.data as { revision?: unknown } | undefined)?.revision;
@@ -79,17 +82,42 @@ const pushChart: MutationHandler = async (ctx) => {
   }
 };
 
-export const MUTATION_HANDLERS: Record<string, MutationHandler> = {
-  chart: pushChart,
-  setlist: ({ db, membership, mutation }) => pushSetlistMutation(db, membership, mutation),
-  annotation: ({ db, membership, mutation }) => pushAnnotationMutation(db, membership, mutation),
-};
+// A map with no prototype, read only through Object.hasOwn: an entity named "constructor",
+// "__proto__" or "valueOf" finds nothing instead of a built-in function.
+export const MUTATION_HANDLERS: Readonly<Record<string, MutationHandler>> = Object.freeze(
+  Object.assign(Object.create(null) as Record<string, MutationHandler>, {
+    chart: pushChart,
+    setlist: ({ db, membership, mutation }: PushContext) => pushSetlistMutation(db, membership, mutation),
+    annotation: ({ db, membership, mutation }: PushContext) => pushAnnotationMutation(db, membership, mutation),
+  }),
+);
+
+function handlerFor(entity: string): MutationHandler | undefined {
+  return Object.hasOwn(MUTATION_HANDLERS, entity) ? MUTATION_HANDLERS[entity] : undefined;
+}
+
+/** The same id rule as the REST routes, for the row id and the change id. */
+function badId(m: Mutation): string | null {
+  if (!IdSchema.safeParse(m.id).success) return "id";
+  if (!IdSchema.safeParse(m.mutationId).success) return "mutationId";
+  return null;
+}
+
+/** Lets other requests run between two mutations, so one long push never holds the server. */
+const yieldToOthers = () => new Promise<void>((resolve) => setImmediate(resolve));
 
 export async function pushMutations(db: Kysely<Database>, actor: Actor | null, bandId: string, mutations: Mutation[]): Promise<PushResponse> {
   const membership = await requireMember(db, actor, bandId, "belong");
   const me = actor as Actor;
   const results: MutationResult[] = [];
   for (const m of mutations) {
+    await yieldToOthers();
+    const wrongId = badId(m);
+    if (wrongId) {
+      // Not stored: a change id that breaks the rule is not a key worth keeping.
+      results.push({ mutationId: m.mutationId, status: "rejected", reason: "Not a valid id: use letters, digits, - and _ only.", fields: [{ field: wrongId, message: "Not a valid id" }] });
+      continue;
+    }
     const prior = await db.selectFrom("applied_mutations").selectAll().where("id", "=", m.mutationId).executeTakeFirst();
     if (prior) {
       results.push(
@@ -99,7 +127,7 @@ export async function pushMutations(db: Kysely<Database>, actor: Actor | null, b
       );
       continue;
     }
-    const handler = MUTATION_HANDLERS[m.entity];
+    const handler = handlerFor(m.entity);
     const result: MutationResult = handler
       ? await handler({ db, actor: me, membership, bandId, mutation: m })
       : { mutationId: m.mutationId, status: "rejected", reason: `This server does not take changes to “${m.entity}”.` };

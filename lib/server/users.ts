@@ -3,11 +3,15 @@ import "server-only";
 // bcrypt hashes.
 import bcrypt from "bcryptjs";
 import type { Kysely } from "kysely";
-import type { Database, User } from "@/db/schema";
+import type { Insertable } from "kysely";
+import type { Database, User, UsersTable } from "@/db/schema";
 import { SignUpSchema } from "@/lib/validation/auth";
 import { zodIssues } from "./zod-issues";
 import { AppError } from "./errors";
+import { weakPasswordReason } from "./password-strength";
 import { newId, nowIso } from "./tokens";
+
+type NewUser = Insertable<UsersTable>;
 
 /** bcrypt work factor; tests may lower it through the environment to stay quick. */
 function cost(): number {
@@ -42,50 +46,60 @@ export async function findUserById(db: Kysely<Database>, id: string): Promise<Us
   return db.selectFrom("users").selectAll().where("id", "=", id).executeTakeFirst();
 }
 
-/** Validates the body itself so server actions and route handlers share one path. */
-export async function signUp(db: Kysely<Database>, input: unknown): Promise<PublicUser> {
+/** What sign-up answers, the same whether the address was new or already had an account. */
+export interface SignUpAnswer {
+  ok: true;
+  message: string;
+}
+
+export const SIGN_UP_ANSWER = (email: string): SignUpAnswer => ({
+  ok: true,
+  message: `Account ready for ${email}. If that address already had an account, nothing was changed and a sign-in link is on its way to it.`,
+});
+
+/**
+ * Validates the body itself so server actions and route handlers share one path. An address that
+ * already has an account gets a mail with a sign-in link instead, and the caller the same answer,
+ * so sign-up does not tell strangers which addresses have accounts. The new account's address is
+ * not proven yet: the first sign-in link its real owner opens ends the password set here.
+ */
+export async function signUp(db: Kysely<Database>, input: unknown, onExisting?: (email: string) => Promise<void>): Promise<SignUpAnswer> {
   const parsed = SignUpSchema.safeParse(input);
   if (!parsed.success) {
     const fields = zodIssues(parsed.error);
     throw new AppError("unprocessable", fields[0]?.message ?? "Check the form.", { fields });
   }
   const { name, email, password, instrument } = parsed.data;
+  const weak = weakPasswordReason(password, [email, name]);
+  if (weak) throw new AppError("unprocessable", weak, { fields: [{ field: "password", message: weak }] });
+  const hash = await hashPassword(password);
   const existing = await findUserByEmail(db, email);
   if (existing) {
-    throw new AppError("conflict", "There is already an account with that e-mail. Sign in instead.", {
-      fields: [{ field: "email", message: "There is already an account with that e-mail" }],
-    });
+    await onExisting?.(email);
+    return SIGN_UP_ANSWER(email);
   }
-  const user: User = {
-    id: newId(),
-    email,
-    name,
-    password_hash: await hashPassword(password),
-    default_instrument: instrument,
-    created_at: nowIso(),
-  };
-  try {
-    await db.insertInto("users").values(user).execute();
-  } catch (err) {
-    // Two sign-ups racing for one address: the unique index decides.
-    if (String(err).includes("UNIQUE")) throw new AppError("conflict", "There is already an account with that e-mail. Sign in instead.");
-    throw err;
-  }
-  return toPublicUser(user);
+  const user: NewUser = { id: newId(), email, name, password_hash: hash, default_instrument: instrument, created_at: nowIso(), email_verified_at: null };
+  const made = await db.insertInto("users").values(user).onConflict((oc) => oc.column("email").doNothing()).executeTakeFirst();
+  // Two sign-ups racing for one address: the unique index decides, and the loser is "existing".
+  if (Number(made.numInsertedOrUpdatedRows ?? 0) === 0) await onExisting?.(email);
+  return SIGN_UP_ANSWER(email);
 }
 
 /** Accounts made from a sign-in link have no password until the person sets one. */
 export async function findOrCreateLinkUser(db: Kysely<Database>, email: string): Promise<User> {
   const existing = await findUserByEmail(db, email);
   if (existing) return existing;
-  const user: User = {
+  const user: NewUser = {
     id: newId(),
     email: email.toLowerCase(),
     name: email.split("@")[0] ?? email,
     password_hash: null,
     default_instrument: "concert",
     created_at: nowIso(),
+    email_verified_at: nowIso(),
   };
   await db.insertInto("users").values(user).onConflict((oc) => oc.column("email").doNothing()).execute();
-  return (await findUserByEmail(db, email)) ?? user;
+  const stored = await findUserByEmail(db, email);
+  if (!stored) throw new Error("the link account was not stored");
+  return stored;
 }

@@ -4,3 +4,4 @@ export * from "./validate";
 export * from "./marks";
 export * from "./share";
 export * from "./share-mail";
+export * from "./duration";

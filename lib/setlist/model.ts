@@ -7,6 +7,22 @@ import { KEY_PATTERN } from "@/lib/validation/chart-input";
 
 export const MAX_SETS = 6;
 export const MAX_ENTRIES = 120;
+export const MAX_CHORUSES = 16;
+/** The longest set a leader can ask for, in minutes. */
+export const MAX_SET_MINUTES = 240;
+
+/** The length the leader wants for each set, in minutes: index 0 = set 1; null = not set. */
+export const SetMinutesSchema = z
+  .array(
+    z
+      .number()
+      .int("Give the set length in whole minutes")
+      .min(5, "A set runs at least 5 minutes")
+      .max(MAX_SET_MINUTES, `A set runs at most ${MAX_SET_MINUTES} minutes`)
+      .nullable(),
+  )
+  .max(MAX_SETS)
+  .default([]);
 
 export const ENDING_KINDS = ["as-written", "tag", "ritardando", "cold", "vamp-out"] as const;
 export const EndingKindSchema = z.enum(ENDING_KINDS, {
@@ -47,9 +63,13 @@ export const SetlistEntrySchema = z
     key: ConcertKeySchema.nullable().default(null),
     tempo: z.number().int().min(20, "Tempo must be at least 20").max(400, "Tempo must be at most 400").nullable().default(null),
     intro: IntroChoiceSchema.nullable().default(null),
+    /** No intro tonight, straight in at the top, even where the chart has its own (then `intro` is null). */
+    straightIn: z.boolean().default(false),
     ending: EndingChoiceSchema.nullable().default(null),
     /** Who solos, in order: "tenor, piano, bass". */
     soloOrder: z.string().trim().max(200, "Keep the solo order under 200 characters").default(""),
+    /** Choruses each soloist takes (for the set's running time). */
+    choruses: z.number().int().min(1, "At least one chorus each").max(MAX_CHORUSES, `At most ${MAX_CHORUSES} choruses each`).default(1),
     notes: z.string().trim().max(500, "Keep the note under 500 characters").default(""),
   })
   // Not strict: devices send back the rows they stored, with setlistId/bandId on them; those are dropped.
@@ -62,6 +82,7 @@ const SetlistFields = {
   startsAt: IsoDateTimeSchema.nullable().default(null),
   venue: z.string().trim().max(160, "Keep the venue under 160 characters").default(""),
   notes: z.string().trim().max(2000, "Keep the notes under 2,000 characters").default(""),
+  setMinutes: SetMinutesSchema,
 };
 
 function entriesAreConsistent(entries: SetlistEntry[], ctx: z.RefinementCtx): void {
@@ -116,6 +137,7 @@ export interface Setlist {
   startsAt: string | null;
   venue: string;
   notes: string;
+  setMinutes: (number | null)[];
   revision: number;
   updatedBy: string;
   updatedAt: string;

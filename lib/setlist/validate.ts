@@ -130,3 +130,14 @@ export function endingInWords(ending: EndingChoice | null): string {
       return `vamp out on the last ${ending.bars} bar${ending.bars === 1 ? "" : "s"}`;
   }
 }
+
+/** Tonight's intro for the performance: `null` none (straight in), `undefined` the chart's own default. */
+export function entryIntro(e: Pick<SetlistEntry, "intro"> & { straightIn?: boolean }): IntroChoice | null | undefined {
+  if (e.straightIn) return null;
+  return e.intro ?? undefined;
+}
+
+/** `introInWords` for a set-list entry, saying so when the band goes straight in at the top. */
+export function entryIntroInWords(e: Pick<SetlistEntry, "intro"> & { straightIn?: boolean }): string {
+  return e.straightIn ? "none, straight in at the top" : introInWords(e.intro);
+}

@@ -1,11 +1,14 @@
 // Sync benchmark (DESIGN.md §9). Prints:
 //   - first sync of a 1,000-chart book into a device (time, bytes), through the sync route;
 //   - a delta sync after one changed chart (time, bytes, and its share of the full download);
-//   - pull pages (50 changes each) per second the route serves on loopback (autocannon, bounded);
+//   - pull pages (50 changes each) and empty polls per second the route serves on loopback
+//     (autocannon), each beside its floor: a bare route in the same build and process answering the
+//     same bytes (app/api/bench/floor, on only under PEDALPOINT_BENCH_FLOOR), plain and gzipped;
+//     BENCH_ROUNDS (3) alternating rounds, medians, because the machine is shared;
 //   - the same pull built in-process, without HTTP, for comparison.
 // Against the real Next route when a production build exists (NEXT_DIST_DIR, default .next), else
 // against a bare node:http wrapper of the same server code (and says so).
-// Env: BENCH_SYNC_PORT (3305), BENCH_SECONDS (8), BENCH_CHARTS (1000), BENCH_NODE_ARGS (node flags for the server).
+// Env: BENCH_SYNC_PORT (3305), BENCH_SECONDS (5), BENCH_ROUNDS (3), BENCH_CHARTS (1000), BENCH_NODE_ARGS (node flags for the server).
 import { spawn, type ChildProcess } from "node:child_process";
 import { randomUUID } from "node:crypto";
 import fs from "node:fs";
@@ -28,7 +31,8 @@ if (!process.env.PEDALPOINT_BENCH_HOOKED) {
 
 const root = path.resolve(import.meta.dirname, "../..");
 const PORT = Number(process.env.BENCH_SYNC_PORT ?? 3305);
-const SECONDS = Number(process.env.BENCH_SECONDS ?? 8);
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 5);
+const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
 const CHARTS = Number(process.env.BENCH_CHARTS ?? 1000);
 const distDir = process.env.NEXT_DIST_DIR || ".next";
 const PASSWORD = "bench-only-password";
@@ -40,19 +44,7 @@ const { hashPassword } = await import("../../lib/server/users");
 const { LocalBook } = await import("../../lib/offline/db");
 const { SyncEngine } = await import("../../lib/offline/sync");
 const { IDBKeyRange, indexedDB } = await import("fake-indexeddb");
-interface CannonResult {
-  requests: { average: number };
-  latency: { p50: number; p99: number };
-  non2xx: number;
-  errors: number;
-}
-// autocannon ships no types; this is the part used here.
-const autocannon = (await import("node:module")).createRequire(import.meta.url)("autocannon") as (o: {
-  url: string;
-  connections: number;
-  duration: number;
-  headers: Record<string, string>;
-}) => Promise<CannonResult>;
+const { measureRatios } = await import("./_ratios");
 
 const ROOTS = ["C", "D", "Eb", "F", "G", "Ab", "Bb"];
 const QUALITIES = ["maj7", "m7", "7", "m7b5", "7b9", "6", "m9", "13"];
@@ -196,7 +188,7 @@ async function main() {
     const nodeArgs = (process.env.BENCH_NODE_ARGS ?? "").split(" ").filter(Boolean);
     child = spawn(process.execPath, [...nodeArgs, path.join(root, "node_modules/next/dist/bin/next"), "start", "-p", String(PORT)], {
       cwd: root,
-      env: { ...process.env, NEXT_DIST_DIR: distDir, DATABASE_PATH: file, NEXTAUTH_URL: base, NEXTAUTH_SECRET: "bench-only-secret", NODE_ENV: "production" },
+      env: { ...process.env, PEDALPOINT_BENCH_FLOOR: dir, NEXT_DIST_DIR: distDir, DATABASE_PATH: file, NEXTAUTH_URL: base, NEXTAUTH_SECRET: "bench-only-secret", NODE_ENV: "production" },
       stdio: "ignore",
     });
     if (!(await waitFor(`${base}/api/health`, child))) throw new Error("the Next server did not start");
@@ -232,16 +224,28 @@ async function main() {
     const row = await book.charts.get(one);
     if (row?.revision !== 2) throw new Error("the delta did not bring the change");
 
-    // Pulls per second: pages of 50 changes.
+    // Pulls per second: a page of 50 changes and an empty poll, each beside its floor.
     const url = `${base}/api/bands/${bandId}/sync?since=0&limit=50`;
-    const cpuBefore = child?.pid ? cpuSeconds(child.pid) : null;
-    const r = await autocannon({ url, connections: 8, duration: SECONDS, headers: cookie ? { cookie } : {} });
-    console.log(`route: ${Math.round(r.requests.average)} pulls/s of 50 changes (target ≥ 1000), p50 ${r.latency.p50} ms, p99 ${r.latency.p99} ms, ${r.non2xx} non-2xx, ${r.errors} errors`);
-    // On a shared machine wall-clock rates move with everyone else's load; the server's own CPU time
-    // per request does not, so it is printed too (and what one core would serve at that cost).
-    if (cpuBefore !== null && child?.pid) {
-      const cpu = (cpuSeconds(child.pid) - cpuBefore) / Math.max(1, r.requests.average * SECONDS);
-      console.log(`route: ${(cpu * 1000).toFixed(2)} ms of server CPU per pull = ${Math.round(1 / cpu)} pulls/s per core`);
+    const auth: Record<string, string> = cookie ? { cookie } : {};
+    if (child) {
+      fs.writeFileSync(path.join(dir, "page.json"), await (await fetch(url, { headers: auth })).text());
+      const head = (await db.selectFrom("changes").select((eb) => eb.fn.max("seq").as("head")).executeTakeFirstOrThrow()).head;
+      // What a device sends when it is up to date: its cursor, scope and the first page's count.
+      const poll = `${base}/api/bands/${bandId}/sync?since=${head}&limit=200&scope=leader&count=1`;
+      const gz = { "accept-encoding": "gzip" };
+      const cpuBefore = cpuSeconds(child.pid!);
+      await measureRatios(
+        [
+          { name: "pull, page of 50 changes", target: 0.7, route: { url, headers: auth }, floor: { url: `${base}/api/bench/floor?body=page`, headers: {} } },
+          { name: "pull, page of 50, gzip", target: 0.7, route: { url, headers: { ...auth, ...gz } }, floor: { url: `${base}/api/bench/floor?body=page`, headers: gz } },
+          { name: "pull, nothing new", target: 0.9, route: { url: poll, headers: auth }, floor: { url: `${base}/api/bench/floor?body=ok`, headers: {} } },
+        ],
+        ROUNDS,
+        SECONDS,
+      );
+      console.log(`(server CPU over the ratio runs: ${(cpuSeconds(child.pid!) - cpuBefore).toFixed(1)} s)`);
+    } else {
+      console.log("ratios need the Next build (the floor route lives in it): skipped");
     }
 
     // In-process, for comparison (no HTTP, no session check).

@@ -41,7 +41,7 @@ export function LinkRequestForm({ callbackUrl, mailPage }: { callbackUrl: string
             {mailPage ? (
               <>
                 {" "}
-                This is a demo: the mail is caught on the <a className="underline" href="/dev/mail">captured mail page</a>.
+                This is a demo: the mail is caught on the captured-mail page whose address (with its key) was printed in the terminal when Pedalpoint started.
               </>
             ) : null}
           </Notice>

@@ -52,8 +52,9 @@ export function SignUpForm({
     }
     const signedIn = await signIn("password", { email: body.email, password: body.password, redirect: false });
     if (!signedIn?.ok || signedIn.error) {
+      // Sign-up answers the same for an address that already has an account; its owner got a mail.
       setBusy(false);
-      setError(signedIn?.error ?? "Your account was made, but signing in failed. Try signing in.");
+      setError(`Signing in did not work. If ${body.email} already had an account, a sign-in link is on its way to it: open it to get in.`);
       return;
     }
     if (inviteToken) {

@@ -1,7 +1,8 @@
+import { safeCallbackPath } from "@/lib/validation/callback";
+
 // Where to go after signing in: only same-site paths, so a crafted link cannot send anyone away.
 export function safePath(callbackUrl: string | null | undefined, fallback = "/bands"): string {
-  if (!callbackUrl || !callbackUrl.startsWith("/") || callbackUrl.startsWith("//")) return fallback;
-  return callbackUrl;
+  return safeCallbackPath(callbackUrl, fallback);
 }
 
 /** A full load, so server components and the service worker see the new session. */

@@ -1,9 +1,13 @@
 import { NextResponse } from "next/server";
 import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
+import { LIMITS } from "@/lib/server/rate-limit";
+import { mailAccountExists } from "@/lib/server/sign-in";
 import { signUp } from "@/lib/server/users";
 import { SignUpSchema } from "@/lib/validation/auth";
 
-export const POST = route({ anonymous: true, body: SignUpSchema }, async ({ body }) =>
-  NextResponse.json({ user: await signUp(await ready(), body) }, { status: 201 }),
-);
+// Same answer for a new address and one that has an account (its owner gets a mail instead).
+export const POST = route({ anonymous: true, body: SignUpSchema, maxBytes: 8 * 1024, limit: LIMITS.signUpPerClient }, async ({ body }) => {
+  const db = await ready();
+  return NextResponse.json(await signUp(db, body, (email) => mailAccountExists(db, email)), { status: 201 });
+});

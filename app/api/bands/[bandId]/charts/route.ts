@@ -3,6 +3,7 @@ import { z } from "zod";
 import { ready } from "@/db";
 import { createChart, listCharts } from "@/lib/server/charts";
 import { route } from "@/lib/server/handler";
+import { CHART_BODY_BYTES } from "@/lib/server/request-guard";
 import { BandParams } from "@/lib/validation/band";
 import { ChartCreateSchema } from "@/lib/validation/chart-input";
 
@@ -14,6 +15,6 @@ export const GET = route({ params: BandParams, query: ListQuery }, async ({ acto
   }),
 }));
 
-export const POST = route({ params: BandParams, body: ChartCreateSchema }, async ({ actor, params, body }) =>
+export const POST = route({ params: BandParams, body: ChartCreateSchema, maxBytes: CHART_BODY_BYTES }, async ({ actor, params, body }) =>
   NextResponse.json({ chart: await createChart(await ready(), actor, params.bandId, body) }, { status: 201 }),
 );

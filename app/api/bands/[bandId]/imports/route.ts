@@ -4,6 +4,6 @@ import { previewImportRequest } from "@/lib/server/imports";
 import { BandParams } from "@/lib/validation/band";
 
 // Multipart field "file": answers the preview of what was read and skipped; stores nothing.
-export const POST = route({ params: BandParams }, async ({ actor, params, request }) => ({
+export const POST = route({ params: BandParams, rawBody: true }, async ({ actor, params, request }) => ({
   preview: await previewImportRequest(await ready(), actor, params.bandId, request),
 }));

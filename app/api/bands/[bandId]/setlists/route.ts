@@ -1,5 +1,6 @@
 import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
+import { SETLIST_BODY_BYTES } from "@/lib/server/request-guard";
 import { createSetlist, listSetlists } from "@/lib/server/setlists";
 import { SetlistCreateSchema } from "@/lib/setlist";
 import { BandParams } from "@/lib/validation/band";
@@ -8,6 +9,6 @@ export const GET = route({ params: BandParams }, async ({ actor, params }) => ({
   setlists: await listSetlists(await ready(), actor, params.bandId),
 }));
 
-export const POST = route({ params: BandParams, body: SetlistCreateSchema }, async ({ actor, params, body }) => ({
+export const POST = route({ params: BandParams, body: SetlistCreateSchema, maxBytes: SETLIST_BODY_BYTES }, async ({ actor, params, body }) => ({
   setlist: await createSetlist(await ready(), actor, params.bandId, body),
 }));

@@ -2,6 +2,7 @@ import { z } from "zod";
 import { ready } from "@/db";
 import { deleteChart, getChart, updateChart } from "@/lib/server/charts";
 import { route } from "@/lib/server/handler";
+import { CHART_BODY_BYTES } from "@/lib/server/request-guard";
 import { ChartParams } from "@/lib/validation/band";
 import { ChartUpdateSchema } from "@/lib/validation/chart-input";
 
@@ -9,7 +10,7 @@ export const GET = route({ params: ChartParams }, async ({ actor, params }) => (
   chart: await getChart(await ready(), actor, params.bandId, params.chartId),
 }));
 
-export const PUT = route({ params: ChartParams, body: ChartUpdateSchema }, async ({ actor, params, body }) => ({
+export const PUT = route({ params: ChartParams, body: ChartUpdateSchema, maxBytes: CHART_BODY_BYTES }, async ({ actor, params, body }) => ({
   chart: await updateChart(await ready(), actor, params.bandId, params.chartId, body),
 }));
 

@@ -9,6 +9,6 @@ export const GET = route({ params: ChartParams }, async ({ actor, params }) => (
 }));
 
 // Multipart field "file": a PDF, PNG or JPEG part of the chart.
-export const POST = route({ params: ChartParams }, async ({ actor, params, request }) =>
+export const POST = route({ params: ChartParams, rawBody: true }, async ({ actor, params, request }) =>
   NextResponse.json({ attachment: await uploadAttachmentRequest(await ready(), actor, params.bandId, params.chartId, request) }, { status: 201 }),
 );

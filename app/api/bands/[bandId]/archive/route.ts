@@ -1,0 +1,17 @@
+import { z } from "zod";
+import { ready } from "@/db";
+import { archiveChart, listArchivedCharts } from "@/lib/server/chart-archive";
+import { route } from "@/lib/server/handler";
+import { BandParams } from "@/lib/validation/band";
+import { IdSchema } from "@/lib/validation/common";
+
+// The band's archived charts (leaders and arrangers), and putting one away.
+export const GET = route({ params: BandParams }, async ({ actor, params }) => ({
+  charts: await listArchivedCharts(await ready(), actor, params.bandId),
+}));
+
+const ArchiveBody = z.object({ chartId: IdSchema }).strict();
+
+export const POST = route({ params: BandParams, body: ArchiveBody }, async ({ actor, params, body }) => ({
+  archived: await archiveChart(await ready(), actor, params.bandId, body.chartId),
+}));
