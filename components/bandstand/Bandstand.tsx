@@ -4,7 +4,7 @@
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
-import type { Chart, IntroChoice } from "@/lib/chart/model";
+import type { Chart, IntroChoice, TagEnding } from "@/lib/chart/model";
 import type { BarMark } from "@/lib/setlist/marks";
 import { useOnline } from "@/lib/offline/hooks";
 import { PagedChart, type PagedChartControls } from "@/components/chart/PagedChart";
@@ -22,6 +22,8 @@ export interface BandstandTune {
   key?: string | null;
   /** undefined: the chart's own intro if it has one; null: none. */
   intro?: IntroChoice | null;
+  /** Tonight's tag ending, drawn after the form. */
+  tag?: TagEnding | null;
   /** Shown in the tune bar, e.g. "3. Lantern Street". */
   label?: string;
   /** What comes after this tune ("Next: Copper Kettle"), shown in the bar. */
@@ -52,10 +54,11 @@ function prettyKey(k: string): string {
   return k.replace("b", "♭").replace("#", "♯");
 }
 
-/** The header's intro words: tonight's choice, the chart's own intro, or none. */
-function introWords(tune: BandstandTune, ownIntroBars: number | null): string {
-  if (tune.introText) return tune.introText;
-  if (tune.intro) return introInWords(tune.intro);
+/** The header's intro words: tonight's choice, the chart's own intro, or none. A turnaround is named by the numerals of its key. */
+function introWords(tune: BandstandTune, ownIntroBars: number | null, numerals?: string): string {
+  const named = (w: string) => (numerals ? w.replace(/I-vi-ii-V|iii-VI-ii-V/, numerals) : w);
+  if (tune.introText) return named(tune.introText);
+  if (tune.intro) return named(introInWords(tune.intro));
   return tune.intro === undefined && ownIntroBars ? `the tune's own, ${ownIntroBars} bars` : "none";
 }
 /** Escape leaves the view the way Close does (unless Escape is mapped to a pedal). */
@@ -122,7 +125,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
   const performance = useMemo(() => {
     if (!tune) return null;
     try {
-      return buildPerformance({ chart: tune.chart, instrument, key: tune.key, intro: tune.intro });
+      return buildPerformance({ chart: tune.chart, instrument, key: tune.key, intro: tune.intro, tag: tune.tag });
     } catch {
       return null;
     }
@@ -177,7 +180,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
           <p className="pp-head-line pp-head-details">
             <span data-testid="head-key">{keyText}</span>
             {tune.chart.tempo ? <span data-testid="head-tempo">♩ = {tune.chart.tempo}</span> : null}
-            <span className="pp-head-intro" data-testid="head-intro">Intro: {introWords(tune, ownIntroBars)}</span>
+            <span className="pp-head-intro" data-testid="head-intro">Intro: {introWords(tune, ownIntroBars, performance?.arrangement.intro?.name)}</span>
           </p>
         ) : null}
       </section>

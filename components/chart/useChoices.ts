@@ -3,7 +3,7 @@
 // last part chosen in the band, then the membership's instrument, then concert.
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useCallback, useMemo, useRef, useSyncExternalStore } from "react";
-import type { IntroChoice } from "@/lib/chart/model";
+import type { IntroChoice, TagEnding } from "@/lib/chart/model";
 import { isInstrumentId, type InstrumentId } from "@/lib/music/instruments";
 import { rememberInstrument, rememberedInstrument } from "@/components/bandstand/settings";
 import { chartQuery, parseChartParams } from "./params";
@@ -13,6 +13,7 @@ export interface Choices {
   key: string | null;
   tempo: number | null;
   intro: IntroChoice | null | undefined;
+  tag: TagEnding | null;
   list: string | null;
   setInstrument: (id: string) => void;
   setKey: (key: string | null) => void;
@@ -46,6 +47,7 @@ export function useChoices(bandId: string | null, membershipInstrument: string |
         key: base.key,
         tempo: base.tempo,
         intro: base.intro,
+        tag: base.tag,
         list: pending ? pending.get("list") : list,
         ...next,
       });
@@ -60,8 +62,9 @@ export function useChoices(bandId: string | null, membershipInstrument: string |
     key: parsed.key,
     tempo: parsed.tempo,
     intro: parsed.intro,
+    tag: parsed.tag,
     list,
-    query: chartQuery({ instrument, key: parsed.key, tempo: parsed.tempo, intro: parsed.intro, list }),
+    query: chartQuery({ instrument, key: parsed.key, tempo: parsed.tempo, intro: parsed.intro, tag: parsed.tag, list }),
     setInstrument: (id) => {
       if (bandId) rememberInstrument(bandId, id);
       replace({ instrument: id });

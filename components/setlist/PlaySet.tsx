@@ -54,6 +54,7 @@ export function PlaySet() {
             chart: { ...c.body, tempo: e.tempo ?? c.body.tempo },
             key: e.key,
             intro: entryIntro(e),
+            tag: e.ending?.kind === "tag" ? { bars: e.ending.bars, times: e.ending.times } : null,
             label: tuneHeading(e, c.title, c.body.key, c.body.tempo),
             next: nextTitle ? `Next: ${nextTitle}` : undefined,
             nextTitle,

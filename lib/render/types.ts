@@ -55,6 +55,8 @@ export interface PlacedBar {
   chords: ChordBox[];
   /** This bar opens / closes an ending bracket (1st, 2nd…) on this line. */
   endingStart: boolean;
+  /** Where an ending bracket opening on this bar starts (after a label box, or a line's clef and key). */
+  endingX: number;
   endingEnd: boolean;
 }
 
@@ -63,6 +65,8 @@ export interface System {
   /** Top of the system's slot; the staff's top line is at `staffY`. */
   y: number;
   staffY: number;
+  /** Top of the rehearsal-label box. */
+  labelY: number;
   height: number;
   bars: PlacedBar[];
 }
