@@ -7,6 +7,8 @@ export const baseURL = `http://localhost:${PORT}`;
 // The local fakes sit just above the app's port, so two checkouts can run their suites side by side.
 const MAIL_FAKE_HTTP_PORT = String(PORT + 26);
 process.env.MAIL_FAKE_HTTP_PORT ??= MAIL_FAKE_HTTP_PORT;
+const PUSH_FAKE_PORT = String(PORT + 28);
+process.env.PUSH_FAKE_PORT ??= PUSH_FAKE_PORT;
 
 export default defineConfig({
   testDir: "tests/e2e",
@@ -62,6 +64,8 @@ export default defineConfig({
       MAIL_FAKE_HTTP_PORT,
       PAYMENT_FAKE: "1",
       PAYMENT_FAKE_PORT: String(PORT + 27),
+      PUSH_FAKE: "1",
+      PUSH_FAKE_PORT,
     },
   },
 });

@@ -1,4 +1,5 @@
 import type { Metadata, Viewport } from "next";
+import { headers } from "next/headers";
 import localFont from "next/font/local";
 import "./globals.css";
 import { SerwistProvider } from "@serwist/next/react";
@@ -26,9 +27,17 @@ export const viewport: Viewport = {
   initialScale: 1,
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Reading the request makes every page render per request, so each gets the proxy's fresh CSP
+  // nonce on its scripts (a page built ahead of time would carry none and be blocked).
+  const nonce = (await headers()).get("x-nonce") ?? undefined;
   return (
     <html lang="en" className={text.variable}>
+      <head>
+        {/* zod compiles fast parsers with new Function unless told not to; the CSP forbids eval, so
+            it is told before any app script runs (its probe would otherwise log a violation). */}
+        <script nonce={nonce} dangerouslySetInnerHTML={{ __html: "globalThis.__zod_globalConfig=Object.assign(globalThis.__zod_globalConfig||{},{jitless:true});" }} />
+      </head>
       <body className="min-h-screen font-sans antialiased">
         {/* The service worker keeps the app usable with no signal (worker/sw.ts). The book itself syncs into IndexedDB. */}
         <SerwistProvider swUrl={serviceWorkerUrl(process.env.NEXT_DIST_DIR)} disable={process.env.NODE_ENV === "development"} reloadOnOnline={false} cacheOnNavigation={false}>

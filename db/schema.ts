@@ -211,6 +211,58 @@ export interface BandDigestsTable {
   sent_by: string;
 }
 
+/** The server's VAPID key pair (one row, "vapid"), made on first start. */
+export interface PushKeysTable {
+  id: string;
+  public_key: string; // base64url, uncompressed P-256 point
+  private_key: string; // base64url
+  created_at: string;
+}
+
+/** One device's Web Push subscription for one band it holds. */
+export interface PushSubscriptionsTable {
+  id: string;
+  band_id: string;
+  user_id: string;
+  device_id: string;
+  endpoint: string;
+  p256dh: string;
+  auth: string;
+  created_at: string;
+  last_sent_at: string | null;
+}
+
+/** What a device said it holds at its last pull (readiness for tonight). */
+export interface DeviceReportsTable {
+  device_id: string;
+  band_id: string;
+  user_id: string;
+  label: string; // "Chromium on Linux", shown to the leader
+  cursor: number;
+  holdings_json: string; // { charts: {id: revision}, setlists: {id: revision}, parts: string[] }
+  reported_at: string;
+}
+
+/** A tune the leader (or the caller they chose) called on a gig: the feed followers read. */
+export interface GigCallsTable {
+  seq: Generated<number>;
+  band_id: string;
+  setlist_id: string;
+  entry_id: string;
+  chart_id: string;
+  called_by: string;
+  created_at: string;
+}
+
+/** Who calls the tunes on a gig when it is not the leader. */
+export interface GigCallersTable {
+  setlist_id: string;
+  band_id: string;
+  user_id: string;
+  set_by: string;
+  set_at: string;
+}
+
 export interface Database {
   users: UsersTable;
   bands: BandsTable;
@@ -230,6 +282,11 @@ export interface Database {
   login_attempts: LoginAttemptsTable;
   sign_in_tokens: SignInTokensTable;
   band_digests: BandDigestsTable;
+  push_keys: PushKeysTable;
+  push_subscriptions: PushSubscriptionsTable;
+  device_reports: DeviceReportsTable;
+  gig_calls: GigCallsTable;
+  gig_callers: GigCallersTable;
   rate_limits: RateLimitsTable;
   ended_sessions: EndedSessionsTable;
 }

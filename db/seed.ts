@@ -6,6 +6,7 @@ import type { Kysely, Transaction } from "kysely";
 import { createHash } from "node:crypto";
 import { parseChartText } from "@/lib/chart";
 import { DEMO_CHARTS } from "./demo-charts";
+import { DEMO_GIG, demoGigStart, demoShareEnd } from "./demo-gig";
 import type { Database, Role } from "./schema";
 
 export const DEMO_PASSWORD = "pedalpoint-demo";
@@ -55,16 +56,65 @@ export interface SeedResult {
   bandId: string;
   usersCreated: number;
   chartsCreated: number;
+  /** The demo gig's id (created, or moved to tonight while the band has not edited it). */
+  setlistId: string;
 }
 
 function inserted(r: { numInsertedOrUpdatedRows?: bigint }[]): number {
   return r.reduce((n, x) => n + Number(x.numInsertedOrUpdatedRows ?? 0n), 0);
 }
 
-async function change(trx: Transaction<Database>, entity: string, entityId: string): Promise<void> {
+async function change(trx: Transaction<Database>, entity: string, entityId: string, at = CREATED_AT): Promise<void> {
   await trx
     .insertInto("changes")
-    .values({ band_id: DEMO_BAND_ID, entity, entity_id: entityId, op: "upsert", user_id: null, created_at: CREATED_AT })
+    .values({ band_id: DEMO_BAND_ID, entity, entity_id: entityId, op: "upsert", user_id: null, created_at: at })
+    .execute();
+}
+
+export const DEMO_GIG_ID = demoId("setlist:tonight");
+
+/**
+ * Tonight's gig and the sub's live share of it. Dated from `now`: while the band has not edited the
+ * gig (revision 1), a later start moves it to that day's evening; once edited, it is the band's own.
+ */
+async function seedGig(trx: Transaction<Database>, now: Date, leaderId: string, sub: { id: string; email: string } | null): Promise<void> {
+  const start = demoGigStart(now).toISOString();
+  const end = demoShareEnd(new Date(start)).toISOString();
+  const at = now.toISOString();
+  const current = await trx.selectFrom("setlists").select(["revision", "starts_at"]).where("id", "=", DEMO_GIG_ID).executeTakeFirst();
+  if (current && (current.revision !== 1 || current.starts_at === start)) return;
+  if (current) {
+    await trx.updateTable("setlists").set({ starts_at: start, updated_at: at }).where("id", "=", DEMO_GIG_ID).execute();
+  } else {
+    await trx
+      .insertInto("setlists")
+      .values({
+        id: DEMO_GIG_ID, band_id: DEMO_BAND_ID, name: DEMO_GIG.name, starts_at: start, venue: DEMO_BAND.venue, notes: DEMO_GIG.notes,
+        set_minutes_json: JSON.stringify(DEMO_GIG.setMinutes), revision: 1, updated_by: leaderId, updated_at: at, deleted_at: null,
+      })
+      .execute();
+    const rows = DEMO_GIG.sets.flatMap((tunes, s) =>
+      tunes.map((t, position) => ({
+        id: demoId(`entry:tonight:${t.slug}`), setlist_id: DEMO_GIG_ID, band_id: DEMO_BAND_ID, set_number: s + 1, position,
+        chart_id: demoId(`chart:${t.slug}`), key: t.key ?? null, tempo: t.tempo ?? null,
+        intro_json: t.intro ? JSON.stringify(t.intro) : null, ending: t.ending ? JSON.stringify(t.ending) : null,
+        solo_order: t.soloOrder, choruses: t.choruses ?? 1, straight_in: t.straightIn ? 1 : 0, notes: t.notes ?? "",
+      })),
+    );
+    await trx.insertInto("setlist_entries").values(rows).execute();
+  }
+  await change(trx, "setlist", DEMO_GIG_ID, at);
+  if (!sub) return;
+  const shareId = demoId("share:tonight");
+  await trx.deleteFrom("shares").where("id", "=", shareId).execute();
+  await trx
+    .insertInto("shares")
+    .values({
+      id: shareId, band_id: DEMO_BAND_ID, setlist_id: DEMO_GIG_ID, user_id: sub.id, email: sub.email,
+      // Already accepted, so no link is ever mailed; the hash only fills the column.
+      token_hash: createHash("sha256").update(`pedalpoint-demo:share:${start}`).digest("hex"),
+      expires_at: end, created_by: leaderId, created_at: at, revoked_at: null,
+    })
     .execute();
 }
 
@@ -162,7 +212,9 @@ export async function seedDemo(db: Kysely<Database>, now = new Date()): Promise<
         .execute();
       await change(trx, "chart", id);
     }
-    return { bandId: DEMO_BAND_ID, usersCreated, chartsCreated };
+    const subAccount = DEMO_ACCOUNTS.find((a) => a.role === "sub");
+    await seedGig(trx, now, leaderId, subAccount ? { id: await userId(subAccount.email), email: subAccount.email } : null);
+    return { bandId: DEMO_BAND_ID, usersCreated, chartsCreated, setlistId: DEMO_GIG_ID };
   });
 }
 

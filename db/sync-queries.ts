@@ -6,6 +6,7 @@ import "server-only";
 import type BetterSqlite3 from "better-sqlite3";
 import { CompiledQuery, type Kysely } from "kysely";
 import { sqliteHandle } from "./connection";
+import { engineOf, placeholders } from "./engine";
 import type { Database, Membership } from "./schema";
 
 const prepared = new WeakMap<BetterSqlite3.Database, Map<string, BetterSqlite3.Statement>>();
@@ -17,7 +18,8 @@ const prepared = new WeakMap<BetterSqlite3.Database, Map<string, BetterSqlite3.S
 async function all<T>(db: Kysely<Database>, sql: string, params: readonly unknown[], shape?: (row: unknown[]) => T): Promise<T[]> {
   const handle = sqliteHandle(db);
   if (!handle) {
-    const rows = (await db.executeQuery<T>(CompiledQuery.raw(sql, [...params]))).rows as T[];
+    // PostgreSQL (or any other dialect): the same SQL through Kysely, placeholders numbered for it.
+    const rows = (await db.executeQuery<T>(CompiledQuery.raw(placeholders(engineOf(db), sql), [...params]))).rows as T[];
     return shape ? rows.map((r) => shape(Object.values(r as object))) : rows;
   }
   let cache = prepared.get(handle);
@@ -37,6 +39,19 @@ export function membershipRow(db: Kysely<Database>, bandId: string, userId: stri
 
 export function bandNameRow(db: Kysely<Database>, bandId: string): Promise<{ id: string; name: string }[]> {
   return all(db, `select id, name from bands where id = ?`, [bandId]);
+}
+
+/**
+ * The band and its cursor: the seq of its newest change (0 with none), one seek on the feed index
+ * changes_band_feed (band_id, seq, …). A poll whose `since` is already there has nothing to read.
+ */
+export function bandCursorRow(db: Kysely<Database>, bandId: string): Promise<{ id: string; name: string; head: number }[]> {
+  return all(
+    db,
+    `select b.id, b.name, coalesce((select max(c.seq) from changes c where c.band_id = b.id), 0) as head from bands b where b.id = ?`,
+    [bandId],
+    (r) => ({ id: r[0] as string, name: r[1] as string, head: Number(r[2]) }),
+  );
 }
 
 export interface FeedChange {

@@ -87,9 +87,10 @@ function lighthouse(url: string, headersFile: string, out: string): Figures {
   if (r.status !== 0) throw new Error(`lighthouse exited with ${r.status} on ${url}`);
   const lhr = JSON.parse(fs.readFileSync(out, "utf8")) as {
     categories: { performance: { score: number } };
-    audits: Record<string, { numericValue?: number; details?: { items?: { resourceType?: string; transferSize?: number }[] } }>;
+    audits: Record<string, { numericValue?: number; details?: { items?: { resourceType?: string; transferSize?: number; sessionTargetType?: string }[] } }>;
   };
-  const requests = lhr.audits["network-requests"]?.details?.items ?? [];
+  // The page's own requests: the service worker's precache downloads are not what the page waits for.
+  const requests = (lhr.audits["network-requests"]?.details?.items ?? []).filter((q) => (q.sessionTargetType ?? "page") === "page");
   return {
     score: Math.round(lhr.categories.performance.score * 100),
     lcp: lhr.audits["largest-contentful-paint"]?.numericValue ?? Number.NaN,

@@ -20,6 +20,7 @@ const distDir = process.env.NEXT_DIST_DIR || ".next";
 
 process.env.MAIL_FAKE = "1";
 process.env.PAYMENT_FAKE = "1";
+process.env.PUSH_FAKE ??= "1";
 process.env.PORT ??= "3000";
 process.env.NEXTAUTH_URL ??= `http://localhost:${process.env.PORT}`;
 

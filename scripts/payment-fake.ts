@@ -116,6 +116,10 @@ export async function startPaymentFake(opts: PaymentFakeOptions): Promise<Paymen
       customers.set(c.id as string, c);
       return [200, c];
     }
+    // The one price the app sells, so the plan page can state it before checkout.
+    if (resource === "prices" && method === "GET" && sub1) {
+      return [200, { id: sub1, object: "price", active: true, currency: PLAN_CURRENCY, unit_amount: PLAN_AMOUNT, recurring: { interval: "month", interval_count: 1 } }];
+    }
     if (resource === "customers" && method === "GET" && sub1) return customers.has(sub1) ? [200, customers.get(sub1)!] : missing("customer");
     if (resource === "checkout" && sub1 === "sessions" && method === "POST" && !sub2) {
       if (!body.success_url) return [400, { error: { type: "invalid_request_error", param: "success_url", message: "Missing required param: success_url." } }];

@@ -2,7 +2,7 @@
 //   --fresh  delete the database file (and DATA_DIR) first      --seed  add the demo band
 //   --dev    run `next dev` instead of `next start`
 // Env: PORT (3000), DATABASE_PATH, DATA_DIR, MAIL_FAKE=1 (SMTP_PORT, MAIL_FAKE_HTTP_PORT),
-//      PAYMENT_FAKE=1 (PAYMENT_FAKE_PORT), NEXTAUTH_URL, NEXTAUTH_SECRET.
+//      PAYMENT_FAKE=1 (PAYMENT_FAKE_PORT), PUSH_FAKE=1 (PUSH_FAKE_PORT), NEXTAUTH_URL, NEXTAUTH_SECRET.
 import { spawn, type ChildProcess } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import fs from "node:fs";
@@ -10,7 +10,9 @@ import path from "node:path";
 import { pathToFileURL } from "node:url";
 import { databasePath, migrateToLatest, openDatabase } from "../db/connection";
 import { demoAccountsTable, seedDemo, DEMO_BAND_ID } from "../db/seed";
+import { removeStaleUploads } from "../lib/server/stale-uploads";
 import { startMailFake } from "./mail-fake";
+import { startPushFake } from "./push-fake";
 
 export interface StartFlags {
   fresh?: boolean;
@@ -79,6 +81,14 @@ async function startFakes(): Promise<Closable[]> {
       console.warn("PAYMENT_FAKE=1 but scripts/payment-fake.ts is missing; payments are off");
     }
   }
+  if (process.env.PUSH_FAKE === "1") {
+    const push = await startPushFake({ port: Number(process.env.PUSH_FAKE_PORT ?? 2528) });
+    process.env.PUSH_FAKE_PORT = String(push.port);
+    // The one plain-http push endpoint the server will send to (lib/server/push-subscriptions.ts).
+    process.env.PUSH_FAKE_ORIGIN = push.origin;
+    console.log(`push fake on ${push.origin}, received pushes at ${push.origin}/messages`);
+    fakes.push({ name: "push fake", close: push.close });
+  }
   return fakes;
 }
 
@@ -118,6 +128,8 @@ export async function runStart(flags: StartFlags): Promise<void> {
   if (process.env.MAIL_FAKE === "1") process.env.MAIL_VIEW_KEY ??= randomBytes(18).toString("base64url");
   if (flags.fresh) removeFresh();
   await prepareDatabase(flags);
+  const stale = removeStaleUploads(path.resolve(root, process.env.DATA_DIR ?? "data"));
+  if (stale) console.log(`removed ${stale} unfinished upload file(s) left by an earlier stop`);
   const fakes = await startFakes();
 
   const nextBin = path.join(root, "node_modules", ".bin", "next");

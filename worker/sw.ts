@@ -5,6 +5,7 @@
 import type { PrecacheEntry, RouteHandlerCallbackOptions, SerwistGlobalConfig } from "serwist";
 import { CacheFirst, ExpirationPlugin, NetworkOnly, Serwist, StaleWhileRevalidate } from "serwist";
 import { getSyncEngine } from "../lib/offline/sync";
+import { registerPushHandlers } from "./push";
 import { matchShell } from "./shells";
 
 declare global {
@@ -99,4 +100,5 @@ self.addEventListener("sync", (event: Event) => {
   );
 });
 
+registerPushHandlers();
 serwist.addEventListeners();

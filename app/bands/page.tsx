@@ -1,8 +1,13 @@
 import type { Metadata } from "next";
+import { Suspense } from "react";
 import { BandsScreen } from "@/components/library/BandsScreen";
 
 export const metadata: Metadata = { title: "Your bands" };
 
 export default function BandsPage() {
-  return <BandsScreen />;
+  return (
+    <Suspense fallback={null}>
+      <BandsScreen />
+    </Suspense>
+  );
 }

@@ -2,7 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 
 export const metadata: Metadata = { title: "No signal" };
-export const dynamic = "force-static";
+// Rendered per request like every page (the CSP nonce, see app/layout.tsx); the service worker
+// stores it once, with its matching policy header.
 
 // Served by the service worker for a page that needs the network when there is none.
 // The band's book (library, charts, set lists, bandstand) is stored on the device and still opens.

@@ -3,13 +3,14 @@
 // Reusable for a whole set: pass several tunes, each with its own key and intro.
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from "react";
 import type { Chart, IntroChoice, TagEnding } from "@/lib/chart/model";
 import type { BarMark } from "@/lib/setlist/marks";
 import { useOnline } from "@/lib/offline/hooks";
 import { PagedChart, type PagedChartControls } from "@/components/chart/PagedChart";
 import { buildPerformance } from "@/components/chart/performance";
-import { introInWords } from "@/lib/setlist";
+import { introInWords, type EndingChoice } from "@/lib/setlist";
+import { PlayerPanel } from "@/components/player";
 import { cx } from "@/components/ui/cx";
 import { saveReadingSettings, useReadingSettings, type Theme } from "./settings";
 import { usePedalKeys } from "./usePedalKeys";
@@ -34,6 +35,8 @@ export interface BandstandTune {
   introText?: string;
   /** The reader's personal marks on this chart, keyed by `${section}:${bar}`. */
   marks?: ReadonlyMap<string, BarMark>;
+  /** Tonight's ending from the set list, for playback. */
+  ending?: EndingChoice | null;
 }
 
 export interface BandstandProps {
@@ -46,6 +49,9 @@ export interface BandstandProps {
   exitHref: string;
   /** `at`: which page of the new tune opens (a parent that remounts this view passes it back as startAt). */
   onTuneChange?: (index: number, at: "first" | "last") => void;
+  /** Following the leader's calls on a gig (components/gig), and the gig's controls for the bar. */
+  following?: boolean;
+  gigControls?: ReactNode;
 }
 
 const BAR_HEIGHT = 44;
@@ -87,9 +93,10 @@ function Label({ long, short }: { long: string; short: string }) {
   );
 }
 
+const stagePage = () => document.querySelector<HTMLElement>('.pp-bandstand-stage [data-testid="chart-page"]');
 const THEME_CLASS: Record<Theme, string> = { stage: "pp-theme-stage", ember: "pp-theme-ember" };
 
-export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exitHref, onTuneChange }: BandstandProps) {
+export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exitHref, onTuneChange, following, gigControls }: BandstandProps) {
   const settings = useReadingSettings();
   const online = useOnline();
   const [index, setIndex] = useState(() => Math.min(Math.max(0, start), Math.max(0, tunes.length - 1)));
@@ -195,6 +202,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
             earlyTurn={settings.earlyTurn}
             startPage={entry === "last" ? "last" : 1}
             marks={tune.marks}
+            following={following}
             label={`${tune.chart.title}, ${performance.text.partLabel}`}
             controls={controls}
             onView={(_, page, pages, atStart, atEnd) => {
@@ -237,6 +245,9 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
             {tune.next}
           </span>
         ) : null}
+        {tune ? (
+          <PlayerPanel key={index} variant="stage" chart={tune.chart} concertKey={tune.key} intro={tune.intro} ending={tune.ending} host={stagePage} turnTo={(p) => controls.current?.goToPage(p)} />
+        ) : null}
         <span ref={counter} className="pp-bar-counter" data-testid="page-counter" aria-hidden="true">
           1 / 1
         </span>
@@ -252,6 +263,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
             <Label long="Tune →" short="→" />
           </button>
         ) : null}
+        {gigControls}
         <button
           type="button"
           className="pp-bar-button"

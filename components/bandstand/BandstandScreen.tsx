@@ -8,6 +8,7 @@ import { markChartSeen, useBandCharts, useChart, useMembership } from "@/lib/off
 import { useBandRoute } from "@/lib/offline/route";
 import { chartQuery } from "@/components/chart/params";
 import { useChoices } from "@/components/chart/useChoices";
+import { StageChanges } from "@/components/changes/StageChanges";
 import { Bandstand, type BandstandTune } from "./Bandstand";
 
 export function BandstandScreen() {
@@ -58,22 +59,25 @@ export function BandstandScreen() {
   }
   const listedIds = ids.filter((id) => id === local.id || charts?.some((c) => c.id === id));
   return (
-    <Bandstand
-      key={`${local.id}:${choices.instrument}`}
-      tunes={tunes}
-      start={start}
-      startAt={enterAt}
-      instrument={choices.instrument}
-      exitHref={`${base}/${encodeURIComponent(chartId)}${choices.query}`}
-      onTuneChange={(i, at) => {
-        setEnterAt(at);
-        // Keep the address on the tune being read, so a reload (or the service worker) reopens it.
-        const id = listedIds[i];
-        if (id) {
-          const q = chartQuery({ instrument: choices.instrument, list: choices.list });
-          window.history.replaceState(null, "", `${base}/${encodeURIComponent(id)}/bandstand${q}`);
-        }
-      }}
-    />
+    <>
+      <StageChanges chartId={local.id} instrument={choices.instrument} tonightKey={choices.key} />
+      <Bandstand
+        key={`${local.id}:${choices.instrument}`}
+        tunes={tunes}
+        start={start}
+        startAt={enterAt}
+        instrument={choices.instrument}
+        exitHref={`${base}/${encodeURIComponent(chartId)}${choices.query}`}
+        onTuneChange={(i, at) => {
+          setEnterAt(at);
+          // Keep the address on the tune being read, so a reload (or the service worker) reopens it.
+          const id = listedIds[i];
+          if (id) {
+            const q = chartQuery({ instrument: choices.instrument, list: choices.list });
+            window.history.replaceState(null, "", `${base}/${encodeURIComponent(id)}/bandstand${q}`);
+          }
+        }}
+      />
+    </>
   );
 }

@@ -4,6 +4,7 @@
 import Link from "next/link";
 import { useEffect, useMemo, useRef, useState } from "react";
 import type { IntroResult } from "@/lib/chart/model";
+import { ChangeSummary } from "@/components/changes/ChangeSummary";
 import { markChartSeen, useChart, useMembership } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
 import { ChartHistory } from "@/components/library/ChartHistory";
@@ -15,9 +16,11 @@ import { PagedChart, type PagedChartControls } from "./PagedChart";
 import { InstrumentPicker, IntroPicker, KeyPicker, partReader } from "./Pickers";
 import { PrintSheets } from "./PrintSheets";
 import { MarksPanel } from "@/components/marks/MarksPanel";
+import { NotSharedWithSub } from "@/components/library/SubNotices";
 import { useChartMarks } from "@/components/marks/useBarMarks";
 import { buildPerformance } from "./performance";
 import { useBoxSize } from "./useBoxSize";
+import { PlayerPanel } from "@/components/player";
 import { useChoices } from "./useChoices";
 
 export function ChartScreen() {
@@ -60,6 +63,7 @@ export function ChartScreen() {
   if (!bandId || !chartId) return null;
   if (local === undefined) return <p className="p-6 text-ink-muted">Opening the chart…</p>;
   if (local === null || !chart) {
+    if (membership?.role === "sub") return <NotSharedWithSub bandId={bandId} />;
     return (
       <main id="main" className="mx-auto max-w-3xl p-6">
         <Notice kind="error" title="This chart is not in your book">
@@ -89,9 +93,11 @@ export function ChartScreen() {
           <Link href={`/bands/${encodeURIComponent(bandId)}/import/parts?chart=${encodeURIComponent(chartId)}`} className={buttonClass("secondary")} data-testid="open-parts">
             PDF parts
           </Link>
-          <a href={`/api/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(chartId)}/musicxml?instrument=${choices.instrument}`} className={buttonClass("secondary")} data-testid="export-musicxml" download>
-            MusicXML
-          </a>
+          {membership && membership.role !== "sub" ? (
+            <a href={`/api/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(chartId)}/musicxml?instrument=${choices.instrument}`} className={buttonClass("secondary")} data-testid="export-musicxml" download>
+              MusicXML
+            </a>
+          ) : null}
         </div>
       </div>
 
@@ -131,6 +137,8 @@ export function ChartScreen() {
         </section>
 
         <aside className="no-print flex min-w-0 flex-col gap-5" aria-label="Reading choices">
+          <ChangeSummary chartId={chartId} instrument={choices.instrument} tonightKey={choices.key} />
+          <PlayerPanel chart={chart} concertKey={choices.key} intro={choices.intro} tempo={choices.tempo} host={() => box?.querySelector<HTMLElement>('[data-testid="chart-page"]') ?? null} />
           <InstrumentPicker value={choices.instrument} onChange={choices.setInstrument} />
           <KeyPicker chartKey={chart.key} value={choices.key ?? chart.key} onChange={choices.setKey} />
           <IntroPicker

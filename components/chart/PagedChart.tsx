@@ -1,6 +1,8 @@
 "use client";
-// One chart as pages fitted to a box: lays out for the box's size, draws every page ahead into
-// stacked sheets, and turns by swapping which sheet is visible (PageFlipper). The shown page's
+// One chart as pages fitted to a box: lays out for the box's size, draws the shown page and the next
+// into stacked sheets (later pages when idle, see draw-sheets.ts), and turns by swapping which sheet
+// is visible (PageFlipper). The engraving code (VexFlow) is loaded only here, on first draw, while the
+// page's title and chord names show at once as text in the same box (ChartPreview). The shown page's
 // element carries data-testid="chart-page" with data-page / data-pages for outside checks.
 import { useEffect, useImperativeHandle, useMemo, useRef, useState, type Ref } from "react";
 import type { Arrangement } from "@/lib/chart/model";
@@ -9,9 +11,29 @@ import { layoutChart } from "@/lib/render/layout";
 import type { LayoutOptions } from "@/lib/render/types";
 import type { View } from "@/lib/render/early-turn";
 import { PageFlipper } from "@/components/bandstand/flipper";
-import { drawSheets, musicFontsReady } from "./draw-sheets";
+import { ChartPreview } from "./ChartPreview";
+import type { DrawJob } from "./draw-sheets";
 import type { PageText } from "./engrave";
+import { musicFontsReady } from "./music-fonts";
 import "./sheets.css";
+
+/** The engraving code and its fonts, fetched once. */
+let engraving: Promise<[typeof import("./draw-sheets"), void]> | null = null;
+function loadEngraving() {
+  engraving ??= Promise.all([import("./draw-sheets"), musicFontsReady()]).catch((e: unknown) => {
+    // A failed fetch is not kept: the next draw tries again.
+    engraving = null;
+    throw e;
+  });
+  return engraving;
+}
+const prefetch = () => void loadEngraving().catch(() => undefined);
+// A page that draws starts fetching the engraving once the browser is idle after its first paint, so
+// it arrives while the book is still being read from the device or the network, not after.
+if (typeof window !== "undefined") {
+  if ("requestIdleCallback" in window) window.requestIdleCallback(prefetch, { timeout: 1500 });
+  else setTimeout(prefetch, 200);
+}
 
 export interface PagedChartControls {
   next: () => boolean;
@@ -35,6 +57,8 @@ export interface PagedChartProps {
   className?: string;
   /** The reader's personal marks, keyed by `${section}:${bar}` (lib/setlist marksByBar). */
   marks?: ReadonlyMap<string, BarMark>;
+  /** This device follows the leader's calls on a gig (shown as data-following for outside checks). */
+  following?: boolean;
 }
 
 export function PagedChart({
@@ -50,11 +74,15 @@ export function PagedChart({
   onView,
   className,
   marks,
+  following,
 }: PagedChartProps) {
   const host = useRef<HTMLDivElement>(null);
   const live = useRef<HTMLParagraphElement>(null);
   const flipper = useRef<PageFlipper | null>(null);
   const [error, setError] = useState<string | null>(null);
+  // Until the first engraving is in, the page shows as text (ChartPreview).
+  const [engraved, setEngraved] = useState(false);
+  const [firstPage] = useState(startPage);
   const onViewRef = useRef(onView);
   const startRef = useRef(startPage);
   const textKey = JSON.stringify(text);
@@ -78,27 +106,35 @@ export function PagedChart({
   useEffect(() => {
     const el = host.current;
     if (!el || !layout) return;
-    let job: ReturnType<typeof drawSheets> | null = null;
+    let job: DrawJob | null = null;
     let gone = false;
-    const keepPage = flipper.current ? Number(el.dataset.page ?? 1) : startRef.current === "last" ? Infinity : startRef.current;
+    const pages = layout.pages.length;
+    const keepPage = Math.max(1, Math.min(flipper.current ? Number(el.dataset.page ?? 1) : startRef.current === "last" ? Infinity : startRef.current, pages));
     el.dataset.drawn = "false";
-    musicFontsReady()
-      .then(() => {
+    loadEngraving()
+      .then(([{ drawSheets }]) => {
         if (gone) return;
         const drawnMarks = new Map(JSON.parse(marksKey) as [string, BarMark][]);
-        job = drawSheets(el, { layout, writtenKey: arrangement.writtenKey, text: JSON.parse(textKey) as PageText, marks: drawnMarks });
-        const pages = layout.pages.length;
+        const sheets = drawSheets(el, { layout, writtenKey: arrangement.writtenKey, text: JSON.parse(textKey) as PageText, marks: drawnMarks, startPage: keepPage });
+        job = sheets;
+        let placed = false;
         flipper.current = new PageFlipper(
           el,
           pages,
           { earlyTurnFractions: layout.pages.map((p) => p.earlyTurnY / p.height) },
           live.current,
           earlyTurn,
-          (view, index, views) => onViewRef.current?.(view, Number(el.dataset.page), pages, index === 0, index === views.length - 1),
+          (view, index, views) => {
+            // A page not drawn yet (a jump) is drawn before this frame; the one after it next task.
+            if (placed) sheets.show(Number(el.dataset.page));
+            onViewRef.current?.(view, Number(el.dataset.page), pages, index === 0, index === views.length - 1);
+          },
         );
-        flipper.current.goToPage(Math.max(1, Math.min(keepPage, pages)));
+        flipper.current.goToPage(keepPage);
+        placed = true;
         el.dataset.drawn = "true";
-        return job.done.then(() => {
+        setEngraved(true);
+        return sheets.done.then(() => {
           if (!gone) el.dataset.drawnAll = "true";
         });
       })
@@ -109,13 +145,16 @@ export function PagedChart({
     };
   }, [layout, arrangement.writtenKey, textKey, earlyTurn, marksKey]);
 
+  const previewPage = layout && !engraved ? layout.pages[Math.max(1, Math.min(firstPage === "last" ? Infinity : firstPage, layout.pages.length)) - 1] : undefined;
   return (
     <div className={className} style={{ width, height, position: "relative" }}>
+      {previewPage ? <ChartPreview page={previewPage} text={text} /> : null}
       <div
         ref={host}
         className="pp-sheets"
         style={{ width, height }}
         data-testid="chart-page"
+        data-following={following ? "true" : undefined}
         data-page="1"
         data-pages={layout?.pages.length ?? 0}
         data-systems={layout?.pages[0]?.systems.length ?? 0}

@@ -1,6 +1,6 @@
 // Draws one laid-out page into an SVG with VexFlow. Positions come from lib/render; this file only
-// turns them into staves, slashes, barlines and text. VexFlow's Bravura and Academico come bundled as
-// data URLs (vexflow/bravura), so drawing never fetches a font.
+// turns them into staves, slashes, barlines and text. VexFlow is the core build (./vexflow); its fonts
+// are files loaded before the first draw (music-fonts.ts) and precached by the service worker.
 import {
   Barline,
   Beam,
@@ -14,7 +14,7 @@ import {
   Voice,
   type Note,
   type RenderContext,
-} from "vexflow/bravura";
+} from "./vexflow";
 import type { ChartLayout, Page, PlacedBar, System } from "@/lib/render/types";
 import { melodyNotes, melodyTies } from "./melody";
 import { textWidth } from "@/lib/render/metrics";

@@ -1,5 +1,5 @@
 // A bar's melody (already at written pitch for the part) as VexFlow notes.
-import { StaveNote, StaveTie, Dot } from "vexflow/bravura";
+import { StaveNote, StaveTie, Dot } from "./vexflow";
 import type { MelodyNote } from "@/lib/chart/model";
 import type { Clef } from "@/lib/render/types";
 

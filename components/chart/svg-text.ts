@@ -1,6 +1,6 @@
 // Text, boxes and brackets drawn straight into VexFlow's SVG. Chord symbols are one <text> with a
 // raised <tspan> for extensions, so the browser places the parts and nothing needs measuring.
-import type { RenderContext } from "vexflow/bravura";
+import type { RenderContext } from "./vexflow";
 import { ENDING_LABEL_SIZE, SUPERSCRIPT_SCALE, labelBoxWidth, splitSymbol } from "@/lib/render/metrics";
 import { chordParts } from "./chord-parts";
 

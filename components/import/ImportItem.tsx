@@ -78,8 +78,19 @@ export function ImportItem({ entry, bandId, onTitle, onSave }: { entry: ImportEn
 
 function Preview({ preview }: { preview: PreviewData }) {
   const { report } = preview;
+  const changed = report.changed ?? [];
   return (
     <div className="mt-3 grid gap-4 md:grid-cols-2">
+      {changed.length ? (
+        <Notice kind="info" title="Imported with changes" className="md:col-span-2" testId="import-changed">
+          <p>Chart text could not hold everything in this file as written, so these bars were changed. The rest is as the file has it.</p>
+          <ul className="mt-1 list-disc pl-5 text-sm">
+            {changed.map((line) => (
+              <li key={line}>{line}</li>
+            ))}
+          </ul>
+        </Notice>
+      ) : null}
       <section aria-label="What was read">
         <h3 className="font-semibold">Read</h3>
         <ul className="mt-1 list-disc pl-5 text-sm" data-testid="import-read">

@@ -1,8 +1,8 @@
 "use client";
 // My bands, from the local book, and a form to start a new band (which needs the network).
 import Link from "next/link";
-import { useRouter } from "next/navigation";
-import { useState, type FormEvent } from "react";
+import { useRouter, useSearchParams } from "next/navigation";
+import { useEffect, useState, type FormEvent } from "react";
 import { z } from "zod";
 import { Button, LinkButton } from "@/components/ui/Button";
 import { Field, SelectField } from "@/components/ui/Field";
@@ -85,6 +85,15 @@ function CreateBand() {
 export function BandsScreen() {
   const session = useLocalSession();
   const bands = useMyBands();
+  const router = useRouter();
+  const all = useSearchParams().get("all") === "1";
+  // A player, arranger or sub in one band goes straight to its library; starting a band is a leader's
+  // errand, and `?all=1` (the header's "Your bands") still shows this page.
+  const only = bands?.length === 1 && bands[0]!.role !== "leader" && !all ? bands[0]! : null;
+  useEffect(() => {
+    if (only) router.replace(`/bands/${encodeURIComponent(only.id)}`);
+  }, [only, router]);
+  if (only) return <PageColumn><p className="text-ink-muted" role="status">Opening {only.name}…</p></PageColumn>;
 
   if (session === null) {
     return (

@@ -20,7 +20,10 @@ interface Props {
   onChange: (next: LibraryQuery) => void;
 }
 
-/** Search box, sort and the two filters. Every change goes straight into the address. */
+/**
+ * Search box, sort and the two filters. Every change goes straight into the address. On a phone the
+ * three menus share one row, so the first chart shows without scrolling.
+ */
 export function LibraryControls({ query, keys, feels, onChange }: Props) {
   const id = useId();
   // The box is uncontrolled so typing stays smooth; the address follows a moment later.
@@ -36,24 +39,39 @@ export function LibraryControls({ query, keys, feels, onChange }: Props) {
 
   const filtered = query.q || query.key || query.feel;
   return (
-    <form role="search" aria-label="Find charts" className="grid gap-3 sm:grid-cols-2 lg:grid-cols-[2fr_1fr_1fr_1fr_auto]" onSubmit={(e) => e.preventDefault()}>
-      <div className="flex flex-col gap-1 sm:col-span-2 lg:col-span-1">
+    <form role="search" aria-label="Find charts" className="grid grid-cols-3 gap-2 sm:gap-3 lg:grid-cols-[2fr_1fr_1fr_1fr]" onSubmit={(e) => e.preventDefault()}>
+      <div className="col-span-3 flex flex-col gap-1 lg:col-span-1">
         <label htmlFor={`${id}-q`} className="font-semibold">
           Search
         </label>
-        <input
-          id={`${id}-q`}
-          type="search"
-          className={CONTROL}
-          ref={box}
-          defaultValue={query.q}
-          placeholder="Title, composer or feel"
-          onChange={(e) => typed(e.target.value)}
-          data-testid="library-search"
-        />
+        <div className="flex gap-2">
+          <input
+            id={`${id}-q`}
+            type="search"
+            className={CONTROL}
+            ref={box}
+            defaultValue={query.q}
+            placeholder="Title, composer or feel"
+            onChange={(e) => typed(e.target.value)}
+            data-testid="library-search"
+          />
+          <button
+            type="button"
+            className="min-h-11 shrink-0 rounded-md border border-ink-soft px-4 font-semibold disabled:opacity-50"
+            disabled={!filtered}
+            onClick={() => {
+              if (timer.current) clearTimeout(timer.current);
+              if (box.current) box.current.value = "";
+              onChange({ ...DEFAULT_QUERY, sort: query.sort, dir: query.dir });
+            }}
+            data-testid="library-clear"
+          >
+            Clear
+          </button>
+        </div>
       </div>
       <div className="flex flex-col gap-1">
-        <label htmlFor={`${id}-key`} className="font-semibold">
+        <label htmlFor={`${id}-key`} className="text-sm font-semibold sm:text-base">
           Concert key
         </label>
         <select id={`${id}-key`} className={CONTROL} value={query.key} onChange={(e) => onChange({ ...query, key: e.target.value })} data-testid="library-filter-key">
@@ -66,7 +84,7 @@ export function LibraryControls({ query, keys, feels, onChange }: Props) {
         </select>
       </div>
       <div className="flex flex-col gap-1">
-        <label htmlFor={`${id}-feel`} className="font-semibold">
+        <label htmlFor={`${id}-feel`} className="text-sm font-semibold sm:text-base">
           Feel
         </label>
         <select id={`${id}-feel`} className={CONTROL} value={query.feel} onChange={(e) => onChange({ ...query, feel: e.target.value })} data-testid="library-filter-feel">
@@ -79,7 +97,7 @@ export function LibraryControls({ query, keys, feels, onChange }: Props) {
         </select>
       </div>
       <div className="flex flex-col gap-1">
-        <label htmlFor={`${id}-sort`} className="font-semibold">
+        <label htmlFor={`${id}-sort`} className="text-sm font-semibold sm:text-base">
           Sort by
         </label>
         <select
@@ -101,21 +119,6 @@ export function LibraryControls({ query, keys, feels, onChange }: Props) {
             </option>,
           ])}
         </select>
-      </div>
-      <div className="flex items-end">
-        <button
-          type="button"
-          className="min-h-11 w-full rounded-md border border-ink-soft px-4 font-semibold disabled:opacity-50"
-          disabled={!filtered}
-          onClick={() => {
-            if (timer.current) clearTimeout(timer.current);
-            if (box.current) box.current.value = "";
-            onChange({ ...DEFAULT_QUERY, sort: query.sort, dir: query.dir });
-          }}
-          data-testid="library-clear"
-        >
-          Clear
-        </button>
       </div>
     </form>
   );

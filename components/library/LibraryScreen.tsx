@@ -1,6 +1,7 @@
 "use client";
 // The band's library: read from the local book (never straight from the network), so it looks and
 // works the same with and without signal. Search, sort and filters live in the address.
+import { JoinedPrompt } from "@/components/push/JoinedPrompt";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useCallback, useMemo } from "react";
 import { LinkButton } from "@/components/ui/Button";
@@ -12,6 +13,7 @@ import { ArchivedCharts } from "./ArchivedCharts";
 import { DigestButton } from "./DigestButton";
 import { LibraryControls } from "./LibraryControls";
 import { LibraryTable } from "./LibraryTable";
+import { SubEmptyBook } from "./SubNotices";
 import { applyQuery, facets, readQuery, writeQuery, type LibraryQuery, type SortColumn } from "./query";
 
 export function LibraryScreen() {
@@ -45,6 +47,7 @@ export function LibraryScreen() {
   if (!bandId) return null;
   return (
     <PageColumn wide>
+      <JoinedPrompt />
       <div className="mb-6 flex flex-wrap items-end justify-between gap-4">
         <div>
           <h1 className="text-2xl font-bold tracking-tight sm:text-3xl">Library</h1>
@@ -73,7 +76,9 @@ export function LibraryScreen() {
 
       <div className="mt-4">
         {charts === undefined ? (
-          <p className="py-8 text-center text-ink-muted">Opening the book…</p>
+          <LibrarySkeleton />
+        ) : all.length === 0 && membership?.role === "sub" ? (
+          <SubEmptyBook bandId={bandId} />
         ) : all.length === 0 ? (
           <Notice title="The book is empty">
             {canEdit
@@ -88,5 +93,19 @@ export function LibraryScreen() {
       </div>
       {canEdit ? <ArchivedCharts bandId={bandId} /> : null}
     </PageColumn>
+  );
+}
+
+/** Rows' shapes while the device's copy opens, so the page never sits blank. */
+function LibrarySkeleton() {
+  return (
+    <div role="status" aria-busy="true" data-testid="library-skeleton">
+      <span className="sr-only">Opening the book…</span>
+      <ul aria-hidden="true" className="flex flex-col gap-2">
+        {Array.from({ length: 6 }, (_, i) => (
+          <li key={i} className="h-14 animate-pulse rounded-md border border-paper-dim bg-paper-dim" />
+        ))}
+      </ul>
+    </div>
   );
 }

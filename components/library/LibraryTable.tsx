@@ -83,6 +83,7 @@ export function LibraryTable({ bandId, charts, query, canEdit, onSort }: Props) 
               data-testid="library-row"
               data-chart-id={c.id}
               data-updated={c.unseen ? "true" : undefined}
+              data-changed={c.unseen ? "true" : undefined}
               data-copy={c.conflictOf ? "true" : undefined}
             >
               <td className="px-3 py-2">

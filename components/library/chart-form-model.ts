@@ -109,11 +109,22 @@ export function composeText(values: ChartFormValues): ComposedText {
   return { text: `${head.join("\n")}\n\n${values.sourceText}`, header: kept.map(([name]) => FIELD_OF[name]) };
 }
 
-/** Where a problem in the joined text sits in the form: a field, or a line of the text box. */
+/** A message for a person: the parser quotes chart text in backticks, the form in quotation marks. */
+export function plainWords(message: string): string {
+  return message.replace(/`([^`]*)`/g, "“$1”");
+}
+
+/**
+ * Where a problem in the joined text sits in the form: a field, or a line of the text box. With the
+ * text box empty, the problem is the missing bars, so it sits at the text box (not the last field).
+ */
 export function placeProblem(composed: ComposedText, p: TextProblem): { field: keyof ChartFormValues; message: string } | TextProblem {
   const headerLines = composed.header.length;
-  if (p.line <= headerLines) return { field: composed.header[p.line - 1] ?? "title", message: p.message };
-  return { ...p, line: Math.max(1, p.line - headerLines - 1) };
+  const message = plainWords(p.message);
+  const bodyEmpty = composed.text.split("\n").slice(headerLines).join("").trim() === "";
+  if (bodyEmpty && p.line <= headerLines && /bars/i.test(p.message)) return { ...p, message, line: 1, column: 1 };
+  if (p.line <= headerLines) return { field: composed.header[p.line - 1] ?? "title", message };
+  return { ...p, message, line: Math.max(1, p.line - headerLines - 1) };
 }
 
 /** Validates with the same schema the route handler uses, so the form and the server agree. */
@@ -152,7 +163,7 @@ export function fromServerFields(
       if (placed && "field" in placed) errors[placed.field] ??= placed.message;
       else text ??= placed ?? { line: f.line, column: f.column ?? 1, message: f.message };
     }
-    else if (name in emptyValues()) errors[name] ??= f.message;
+    else if (name in emptyValues()) errors[name] ??= plainWords(f.message);
   }
   return { errors, text };
 }

@@ -5,7 +5,7 @@ import { useId, useMemo, useState } from "react";
 import { Button } from "@/components/ui/Button";
 import { Field, SelectField } from "@/components/ui/Field";
 import type { Chart } from "@/lib/chart/model";
-import { anchorFor, MARK_TEXT_MAX, placeAnchor, type MarkData } from "@/lib/setlist";
+import { anchorFor, MARK_TEXT_MAX, placeAnchor, readMarkBar, type MarkData } from "@/lib/setlist";
 import { deleteMarkEverywhere, saveMark, useMyMarks, type LocalMark } from "@/components/setlist/data";
 
 interface Props {
@@ -32,7 +32,8 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
   const names = useMemo(() => sectionNames(chart), [chart]);
   const [editing, setEditing] = useState<LocalMark | null>(null);
   const [section, setSection] = useState(0);
-  const [bar, setBar] = useState(1);
+  const [bar, setBar] = useState("1");
+  const [barError, setBarError] = useState<string | null>(null);
   const [kind, setKind] = useState<MarkData["kind"]>("text");
   const [text, setText] = useState("");
   const [status, setStatus] = useState("");
@@ -42,7 +43,9 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
     const p = placeAnchor(chart, m.data.anchor);
     setEditing(m);
     setSection(p.status === "lost" ? 0 : p.section);
-    setBar(p.status === "lost" ? 1 : p.bar + 1);
+    setBar(String(p.status === "lost" ? 1 : p.bar + 1));
+    setBarError(null);
+    setStatus("");
     setKind(m.data.kind);
     setText(m.data.text);
   }
@@ -53,7 +56,13 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
 
   async function save(e: React.FormEvent) {
     e.preventDefault();
-    const anchor = anchorFor(chart, section, bar - 1);
+    const picked = readMarkBar(bar, bars);
+    if ("error" in picked) {
+      setBarError(picked.error);
+      return setStatus("");
+    }
+    setBarError(null);
+    const anchor = anchorFor(chart, section, picked.bar - 1);
     if (!anchor) return setStatus("That bar is not in the chart.");
     if (kind === "text" && !text.trim()) return setStatus("Write a few words, or choose a highlight.");
     const data: MarkData = { anchor, kind, text: text.trim(), chartRevision, lost: false };
@@ -67,8 +76,8 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
       <h2 id={`${uid}-h`} className="text-lg font-bold">My marks</h2>
       <p className="mb-3 text-sm text-ink-muted">Only you see these, in every key and part, on all your devices.</p>
       <form onSubmit={save} className="grid gap-3">
-        <SelectField label="Section" value={String(section)} onChange={(e) => { setSection(Number(e.target.value)); setBar(1); }} options={names.map((n, i) => ({ value: String(i), label: n }))} data-testid="mark-section" />
-        <Field label={`Bar (1–${bars})`} type="number" min={1} max={bars} value={bar} onChange={(e) => setBar(Math.min(bars, Math.max(1, Number(e.target.value) || 1)))} data-testid="mark-bar" />
+        <SelectField label="Section" value={String(section)} onChange={(e) => { setSection(Number(e.target.value)); setBar("1"); setBarError(null); }} options={names.map((n, i) => ({ value: String(i), label: n }))} data-testid="mark-section" />
+        <Field label={`Bar (1–${bars})`} type="number" min={1} max={bars} value={bar} error={barError} onChange={(e) => setBar(e.target.value)} data-testid="mark-bar" />
         <fieldset className="flex gap-4">
           <legend className="font-semibold">Kind</legend>
           {(["text", "highlight"] as const).map((k) => (
@@ -78,7 +87,15 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
             </label>
           ))}
         </fieldset>
-        <Field label={kind === "text" ? "Words" : "Words (optional)"} value={text} maxLength={MARK_TEXT_MAX} onChange={(e) => setText(e.target.value)} placeholder="breathe here" data-testid="mark-text" />
+        <Field
+          label={kind === "text" ? "Words" : "Words (optional)"}
+          value={text}
+          maxLength={MARK_TEXT_MAX}
+          hint={`${text.length} of ${MARK_TEXT_MAX} characters: a mark is a few words over one bar.`}
+          onChange={(e) => setText(e.target.value)}
+          placeholder="breathe here"
+          data-testid="mark-text"
+        />
         <div className="flex gap-2">
           <Button type="submit" data-testid="mark-save">{editing ? "Change mark" : "Add mark"}</Button>
           {editing ? <Button tone="quiet" onClick={reset}>Cancel</Button> : null}
@@ -98,7 +115,11 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
                 </span>
                 <span className="flex gap-1">
                   <Button tone="quiet" onClick={() => startEdit(m)}>Edit</Button>
-                  <Button tone="quiet" onClick={() => void deleteMarkEverywhere(bandId, m)} aria-label={`Remove the mark at ${where}`}>Remove</Button>
+                  <Button tone="quiet" onClick={() => {
+                    setStatus("Mark removed.");
+                    if (editing?.id === m.id) reset();
+                    void deleteMarkEverywhere(bandId, m);
+                  }} aria-label={`Remove the mark at ${where}`}>Remove</Button>
                 </span>
               </li>
             );

@@ -7,6 +7,13 @@ export interface PlanView {
   cancelAtPeriodEnd: boolean;
   limits: { charts: number | null; members: number | null };
   usage: { charts: number; members: number };
+  price?: { amount: number; currency: string; interval: string } | null;
+}
+
+/** "€9.00 a month", in the reader's own number format. */
+export function priceInWords(price: NonNullable<PlanView["price"]>): string {
+  const money = new Intl.NumberFormat(undefined, { style: "currency", currency: price.currency.toUpperCase() }).format(price.amount / 100);
+  return `${money} a ${price.interval}`;
 }
 
 const STATUS_WORDS: Record<string, string> = {

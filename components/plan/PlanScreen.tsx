@@ -9,7 +9,7 @@ import { Notice } from "@/components/ui/Notice";
 import { PageColumn, PageTitle } from "@/components/ui/Page";
 import { useOnline } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
-import { PlanFacts, type PlanView } from "./PlanFacts";
+import { PlanFacts, priceInWords, type PlanView } from "./PlanFacts";
 
 type Load = { state: "loading" } | { state: "ready"; plan: PlanView } | { state: "error"; message: string };
 
@@ -77,6 +77,13 @@ export function PlanScreen() {
         <>
           <PlanFacts plan={load.plan} />
           <div className="mt-6 flex flex-wrap gap-3">
+            {load.plan.plan === "free" ? (
+              <p className="w-full" data-testid="plan-price">
+                {load.plan.price
+                  ? `The band plan costs ${priceInWords(load.plan.price)}, renews each ${load.plan.price.interval} and can be cancelled any time. You pay on the next page.`
+                  : "The price is shown on the next page, before you pay."}
+              </p>
+            ) : null}
             {load.plan.plan === "free" ? (
               <Button onClick={() => void act("/api/billing/checkout", "")} disabled={busy || !online} data-testid="plan-upgrade">
                 Move to the band plan

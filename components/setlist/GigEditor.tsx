@@ -64,7 +64,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, onStartsAt, onF
   const [outcome, setOutcome] = useState<SaveOutcome | null>(null);
   const [adding, setAdding] = useState<Record<number, string>>({});
 
-  const tunes = useMemo(() => new Map<string, TuneInfo>(charts.map((c) => [c.id, { title: c.title, chart: c.body }])), [charts]);
+  const tunes = useMemo(() => new Map<string, TuneInfo>(charts.map((c) => [c.id, { title: c.title, chart: c.body, changed: c.unseen }])), [charts]);
   const highestSet = draft.entries.reduce((n, e) => Math.max(n, e.setNumber), 1);
   const setCount = Math.min(MAX_SETS, Math.max(highestSet, 1 + extraSets));
   const bySet = new Map(groupBySet(draft.entries).map((s) => [s.setNumber, s.entries]));

@@ -20,6 +20,8 @@ import { GigEditorHost } from "./GigEditor";
 import { SetLength } from "./SetLength";
 import { SetTunes, type TuneInfo } from "./SetTunes";
 import { SharePanel } from "./SharePanel";
+import { PushPrompt } from "@/components/push/PushPrompt";
+import { ReadinessPanel } from "@/components/readiness/ReadinessPanel";
 
 function plain(e: Omit<SetlistEntry, "choruses" | "straightIn"> & { choruses?: number; straightIn?: boolean }): SetlistEntry {
   return {
@@ -42,7 +44,7 @@ export function GigScreen() {
   const [shownStart, setShownStart] = useState<{ id: string; startsAt: string | null } | null>(null);
   const part = instrument ?? membership?.instrument ?? "concert";
   const entries = useMemo(() => (loaded?.entries ?? []).map((e) => plain({ ...e, ending: e.ending as SetlistEntry["ending"] })), [loaded]);
-  const tunes = useMemo(() => new Map<string, TuneInfo>((charts ?? []).map((c) => [c.id, { title: c.title, chart: c.body }])), [charts]);
+  const tunes = useMemo(() => new Map<string, TuneInfo>((charts ?? []).map((c) => [c.id, { title: c.title, chart: c.body, changed: c.unseen }])), [charts]);
 
   if (!bandId || !setlistId) return null;
   if (loaded === undefined || charts === undefined || membership === undefined) {
@@ -92,6 +94,8 @@ export function GigScreen() {
         {!editable && setlist.notes ? <p className="mt-2">{setlist.notes}</p> : null}
       </div>
 
+      <PushPrompt context="setlist" />
+      {editable ? <div className="mb-4"><ReadinessPanel bandId={bandId} setlistId={setlist.id} canNudge={membership?.role === "leader"} /></div> : null}
       <div className="mb-6 flex flex-wrap items-end gap-3 rounded-lg border border-ink-soft p-3">
         <SelectField label="Read as" value={part} onChange={(e) => setInstrument(e.target.value)} options={INSTRUMENT_OPTIONS} className="min-w-64" data-testid="play-instrument" />
         <LinkButton href={`${here}/play?instrument=${encodeURIComponent(part)}`} data-testid="play-set">Play this set</LinkButton>

@@ -3,7 +3,8 @@
 // tonight's key, tempo and intro, in the reader's own instrument. Everything comes from this device.
 import { useSearchParams } from "next/navigation";
 import { useMemo } from "react";
-import { Bandstand, type BandstandTune } from "@/components/bandstand/Bandstand";
+import type { BandstandTune } from "@/components/bandstand/Bandstand";
+import { FollowedBandstand } from "@/components/gig/FollowedBandstand";
 import { Notice } from "@/components/ui/Notice";
 import { useBandRoute } from "@/lib/offline/route";
 import { isInstrumentId } from "@/lib/music/instruments";
@@ -60,6 +61,7 @@ export function PlaySet() {
             nextTitle,
             introText: entryIntroInWords(e),
             marks: marks.get(e.chartId),
+            ending: e.ending,
           },
         ];
       }),
@@ -76,12 +78,13 @@ export function PlaySet() {
       </Notice>
     );
   }
+  // One gig entry per tune drawn (a chart missing on this device is skipped in both).
+  const gigEntries = order.flatMap((e) => {
+    const c = byId.get(e.chartId);
+    return c ? [{ id: e.id, chartId: e.chartId, title: c.title, key: e.key }] : [];
+  });
   return (
-    <Bandstand
-      tunes={tunes}
-      instrument={instrument}
-      start={Math.min(start, tunes.length - 1)}
-      exitHref={exit}
+    <FollowedBandstand bandId={bandId} setlistId={setlistId} entries={gigEntries} tunes={tunes} instrument={instrument} start={Math.min(start, tunes.length - 1)} exitHref={exit}
       onTuneChange={(i) => {
         // The place in the set lives in the address, so a reload (or a worker-served shell) reopens this tune.
         const q = new URLSearchParams(window.location.search);

@@ -23,6 +23,8 @@ import { TuneArrangement } from "./TuneArrangement";
 export interface TuneInfo {
   title: string;
   chart: Chart | null;
+  /** Changed since this device last read it. */
+  changed?: boolean;
 }
 
 interface Props {
@@ -57,6 +59,7 @@ function Row({ entry, index, props }: { entry: SetlistEntry; index: number; prop
       className={`rounded-md border border-ink-soft bg-white p-3 ${isDragging ? "shadow-lg ring-2 ring-brass" : ""}`}
       data-testid="set-tune"
       data-title={title}
+      data-changed={tune?.changed ? "true" : undefined}
     >
       <div className="flex flex-wrap items-center gap-2">
         {props.editable ? (
@@ -73,7 +76,10 @@ function Row({ entry, index, props }: { entry: SetlistEntry; index: number; prop
         ) : null}
         <span className="w-6 text-right font-semibold tabular-nums text-ink-muted">{index + 1}.</span>
         <div className="min-w-40 flex-1">
-          <p className="font-semibold">{title}</p>
+          <p className="font-semibold">
+            {title}
+            {tune?.changed ? <span className="ml-2 text-sm font-normal text-brass-dark">changed since you read it</span> : null}
+          </p>
           <p className="text-sm text-ink-muted">
             Key {entry.key ?? tune?.chart?.key ?? "as written"}
             {entry.tempo ? ` · ♩ = ${entry.tempo}` : ""} · Intro: {entryIntroInWords(entry)} · Ending: {endingInWords(entry.ending)}

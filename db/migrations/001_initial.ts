@@ -1,6 +1,8 @@
 import type { Kysely } from "kysely";
+import { addFeedSeqColumn } from "../engine";
 
-// Plain Kysely schema builder only, so another dialect can run the same migration.
+// Plain Kysely schema builder only, so both dialects run the same migration; the feed's seq column
+// is the one difference (db/engine.ts).
 export async function up(db: Kysely<unknown>): Promise<void> {
   await db.schema
     .createTable("users")
@@ -156,9 +158,7 @@ export async function up(db: Kysely<unknown>): Promise<void> {
     .addColumn("revoked_at", "text")
     .execute();
 
-  await db.schema
-    .createTable("changes")
-    .addColumn("seq", "integer", (c) => c.primaryKey().autoIncrement())
+  await addFeedSeqColumn(db, db.schema.createTable("changes"))
     .addColumn("band_id", "text", (c) => c.notNull())
     .addColumn("entity", "text", (c) => c.notNull())
     .addColumn("entity_id", "text", (c) => c.notNull())

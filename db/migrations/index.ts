@@ -5,6 +5,7 @@ import * as m002 from "./002_sync_feed_index";
 import * as m003 from "./003_band_digests";
 import * as m004 from "./004_sync_feed_cover";
 import * as m005 from "./005_security";
+import * as m006 from "./006_push_readiness_calls";
 import * as m007 from "./007_desk_gig_lengths_archive";
 
 export const migrations: Record<string, Migration> = {
@@ -13,6 +14,7 @@ export const migrations: Record<string, Migration> = {
   "003_band_digests": m003,
   "004_sync_feed_cover": m004,
   "005_security": m005,
+  "006_push_readiness_calls": m006,
   "007_desk_gig_lengths_archive": m007,
 };
 

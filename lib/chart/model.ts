@@ -36,6 +36,11 @@ export const BarSchema = z.object({
   /** 1st/2nd ending this bar belongs to; consecutive bars with the same number form one bracket. */
   ending: z.number().int().min(1).max(8).nullable().default(null),
   melody: z.array(MelodyNoteSchema).max(64).optional(),
+  /**
+   * A pickup (anacrusis): the chart's first bar is short and lasts this many beats of the meter
+   * instead of a full bar (`pickup: 1 beat` in the text). Only ever on the first bar of the chart.
+   */
+  pickup: z.number().positive().max(16).optional(),
 });
 export type Bar = z.infer<typeof BarSchema>;
 
@@ -129,6 +134,8 @@ export interface PerformanceBar {
   melody?: MelodyNote[];
   /** A playing direction written under the bar, in the part's key: "C pedal", "till cue". */
   direction?: string;
+  /** A short first bar (pickup): its length in beats of the meter. */
+  pickup?: number;
   /** Where this bar sits in the chart (for marks); null for generated intro bars. */
   source: { section: number; bar: number } | null;
 }

@@ -3,7 +3,7 @@ import { keyFifths, readKey, simplestKey } from "@/lib/music";
 import type { Meter } from "./model";
 import { ChartTextError } from "./text-error";
 
-export const METADATA_FIELDS = ["title", "composer", "key", "time", "tempo", "feel"] as const;
+export const METADATA_FIELDS = ["title", "composer", "key", "time", "tempo", "feel", "pickup"] as const;
 export type Field = (typeof METADATA_FIELDS)[number];
 
 export interface Meta {
@@ -13,6 +13,8 @@ export interface Meta {
   meter?: Meter;
   tempo?: number | null;
   feel?: string;
+  /** Beats of the short first bar (`pickup: 1 beat`). */
+  pickup?: number;
 }
 
 function readMeter(text: string): Meter | null {
@@ -71,5 +73,12 @@ export function readField(field: Field, value: string, line: number, column: num
     case "feel":
       if (value.length > 60) fail("The feel is too long (60 characters at most)");
       meta.feel = value;
+      return;
+    case "pickup": {
+      const m = /^(\d{1,2})(?:\s*beats?)?$/i.exec(value);
+      const n = m ? Number(m[1]) : NaN;
+      if (!(n >= 1 && n <= 15)) fail(`"${value}" is not a pickup: write how many beats the short first bar has, like \`pickup: 1 beat\` or \`pickup: 2 beats\``);
+      meta.pickup = n;
+    }
   }
 }

@@ -56,6 +56,31 @@ interface PendingSection {
   lastLine: { bars: PendingBar[]; hasMelody: boolean } | null;
 }
 
+// A chart repeats a handful of chords many times; reading each spelling once keeps a long text
+// cheap (chord reading is the costliest step per word). Bounded, so it cannot grow without end.
+const chordCache = new Map<string, string | ChordSymbolError>();
+function readChordSymbol(text: string): string {
+  let hit = chordCache.get(text);
+  if (hit === undefined) {
+    try {
+      hit = formatChord(parseChord(text));
+    } catch (e) {
+      if (!(e instanceof ChordSymbolError)) throw e;
+      hit = e;
+    }
+    if (chordCache.size >= 2_000) chordCache.clear();
+    chordCache.set(text, hit);
+  }
+  if (hit instanceof ChordSymbolError) throw hit;
+  return hit;
+}
+
+/** `Pickup:` alone (or with bars after it) stays a section name, as it always read; `pickup: 1 beat` is the field. */
+function isField(name: string, rest: string): boolean {
+  if (!(METADATA_FIELDS as readonly string[]).includes(name)) return false;
+  return name !== "pickup" || (rest.trim() !== "" && !/^\s*[|[]/.test(rest));
+}
+
 function buildBar(tok: Extract<BarToken, { kind: "bar" }>, meter: Meter, line: number): Bar {
   const words = tok.words;
   const bar: Bar = { chords: [], simile: false, repeatStart: tok.repeatStart, repeatEnd: tok.repeatEnd, ending: null };
@@ -90,7 +115,7 @@ function buildBar(tok: Extract<BarToken, { kind: "bar" }>, meter: Meter, line: n
     }
     let symbol: string;
     try {
-      symbol = formatChord(parseChord(w.text));
+      symbol = readChordSymbol(w.text);
     } catch (e) {
       if (e instanceof ChordSymbolError) throw new ChartTextError(line, w.column, e.message);
       throw e;
@@ -147,8 +172,9 @@ function readMelodyLine(text: string, offset: number, line: number, sec: Pending
   if (segments.length > targets.length) {
     throw new ChartTextError(line, segments[targets.length]!.column, `This melody line has ${segments.length} bars but the bar line above has ${targets.length}`);
   }
-  const need = barQuarters(meter);
   segments.forEach((seg, i) => {
+    const pickup = targets[i]!.bar.pickup;
+    const need = barQuarters(pickup ? { beats: pickup, unit: meter.unit } : meter);
     if (seg.text.trim() === "") return;
     const notes = [];
     let total = 0;
@@ -176,12 +202,19 @@ export function parseChartText(text: string): Chart {
     const m = HEADER_RE.exec(raw);
     if (!m) return;
     const name = m[2]!.trim().toLowerCase() as Field;
-    if (!(METADATA_FIELDS as readonly string[]).includes(name)) return;
+    if (!isField(name, m[3]!)) return;
     if (seen.has(name)) throw new ChartTextError(i + 1, m[1]!.length + 1, `${name} is given twice (first on line ${seen.get(name)})`);
     seen.set(name, i + 1);
     readField(name, m[3]!.trim(), i + 1, m[1]!.length + 1, meta);
   });
   const meter = meta.meter ?? { beats: 4, unit: 4 };
+  // The pickup is the first bar played: the Intro's when the chart has one, else the form's.
+  const introFirst = lines.some((l) => HEADER_RE.exec(l)?.[2]?.trim().toLowerCase() === "intro");
+  let pickupLeft = meta.pickup;
+  if (pickupLeft !== undefined && pickupLeft >= meter.beats) {
+    const line = seen.get("pickup") ?? 1;
+    throw new ChartTextError(line, 1, `A pickup is shorter than a bar: a ${meter.beats}/${meter.unit} bar has ${beatWords(meter.beats)}, so the pickup can have at most ${beatWords(meter.beats - 1)}`);
+  }
 
   const sections: PendingSection[] = [];
   let current: PendingSection | null = null;
@@ -198,7 +231,12 @@ export function parseChartText(text: string): Chart {
     const lineBars: PendingBar[] = [];
     for (const tok of scanBarLine(body, offset, line)) {
       if (tok.kind !== "bar") continue;
-      const bar = buildBar(tok, meter, line);
+      const pickup = pickupLeft !== undefined && current.bars.length === 0 && current.isIntro === introFirst ? pickupLeft : undefined;
+      const bar = buildBar(tok, pickup ? { beats: pickup, unit: meter.unit } : meter, line);
+      if (pickup) {
+        bar.pickup = pickup;
+        pickupLeft = undefined;
+      }
       const p: PendingBar = { bar, line, column: tok.column, endingStart: tok.ending, endingColumn: tok.endingColumn ?? tok.column, endingClose: tok.endingClose };
       if (bar.simile && current.bars.length === 0) throw new ChartTextError(line, tok.column, "% repeats the bar before, but this section has no bar before it");
       current.bars.push(p);
@@ -217,7 +255,7 @@ export function parseChartText(text: string): Chart {
       const column = m[1]!.length + 1;
       const rest = m[3]!;
       const restOffset = raw.length - rest.length;
-      if ((METADATA_FIELDS as readonly string[]).includes(lower)) return;
+      if (isField(lower, rest)) return;
       if (lower === "melody") return readMelodyLine(rest, restOffset, line, current, meter);
       if (rest.trim() !== "" && !/^\s*[|[]/.test(rest)) {
         throw new ChartTextError(line, column, `"${name}" is not a field we know (the fields are ${METADATA_FIELDS.join(", ")}); a section name stands alone on its line, like "B:"`);

@@ -9,9 +9,9 @@ export const BARS_PER_LINE = 4;
 const gcd = (a: number, b: number): number => (b < 1e-9 ? a : gcd(b, a % b));
 
 /** Chords of a bar as text: equal shares need no slashes; otherwise one token per beat-unit with `/`. */
-function chordText(chords: ChordSlot[], meter: Meter): string {
+function chordText(chords: ChordSlot[], meter: Meter, beats = meter.beats): string {
   if (chords.length === 0) return "N.C.";
-  const unit = chords.reduce((g, c) => gcd(g, c.beats), meter.beats);
+  const unit = chords.reduce((g, c) => gcd(g, c.beats), beats);
   const tokens: string[] = [];
   for (const c of chords) {
     tokens.push(c.symbol);
@@ -46,7 +46,7 @@ function sectionText(section: Section, meter: Meter): string[] {
       const prevClosed = i > start && bars[i - 1]!.repeatEnd;
       const opener = bar.repeatStart ? "|: " : prevClosed ? "" : "| ";
       const ending = endingStarts(bars, i) ? `[${bar.ending} ` : "";
-      const content = bar.simile ? "%" : chordText(bar.chords, meter);
+      const content = bar.simile ? "%" : chordText(bar.chords, meter, bar.pickup);
       const close = endingNeedsClose(bars, i) ? " ]" : "";
       const repeat = bar.repeatEnd ? ` :|${bar.repeatTimes && bar.repeatTimes > 2 ? `x${bar.repeatTimes}` : ""}` : "";
       line += `${line ? " " : ""}${opener}${ending}${content}${close}${repeat}`;
@@ -69,6 +69,8 @@ export function serializeChart(chart: Chart): string {
   head.push(`key: ${chart.key}`, `time: ${chart.meter.beats}/${chart.meter.unit}`);
   if (chart.tempo !== null) head.push(`tempo: ${chart.tempo}`);
   if (chart.feel) head.push(`feel: ${chart.feel}`);
+  const pickup = (chart.intro ?? chart.sections[0])?.bars[0]?.pickup;
+  if (pickup) head.push(`pickup: ${pickup} beat${pickup === 1 ? "" : "s"}`);
   const body: string[] = [];
   if (chart.intro) body.push(...sectionText({ ...chart.intro, label: "Intro" }, chart.meter));
   for (const s of chart.sections) body.push(...sectionText(s, chart.meter));

@@ -97,7 +97,7 @@ export interface DigestChart {
 /** The "charts updated" notice: every chart published since the band's last one, each with a link. */
 export function chartsUpdatedMail(p: { to: string; bandName: string; senderName: string; charts: DigestChart[]; libraryLink: string }): MailMessage {
   const count = `${p.charts.length} ${p.charts.length === 1 ? "chart" : "charts"}`;
-  const intro = `${p.senderName} sent this notice: ${count} in the ${p.bandName} book changed since the last one. Your devices pick up the new versions at their next sync; open the app once while you have signal before the gig.`;
+  const intro = `${p.senderName} sent this notice: ${count} in the book of ${p.bandName} changed since the last one. Your devices pick up the new versions at their next sync; open the app once while you have signal before the gig.`;
   const footer = "You get this notice because you are a member of the band. Only the leader or an arranger can send it.";
   const what = (c: DigestChart) => (c.removed ? `removed from the book (revision ${c.revision})` : `revision ${c.revision}`);
   const notes = (c: DigestChart) => c.messages.filter((m) => m.trim() !== "");

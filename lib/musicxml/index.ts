@@ -4,7 +4,10 @@ import { importMusicXml, type ImportOptions, type ImportResult } from "./import"
 import { decodeXmlBytes, scoreFromMxl } from "./mxl";
 import { MAX_MUSICXML_BYTES, MusicXmlError, parseXml } from "./xml";
 
-export { exportMusicXml, type ExportOptions } from "./export";
+export { exportMusicXml, exportBars, chartBars, type ExportOptions, type ExportBar } from "./export";
+export { partExportOptions } from "./part";
+export { exportArrangement } from "./performance";
+export { exportMxl, containerXml, MXL_MIME } from "./mxl-write";
 export { harmonyToSymbol, symbolToHarmony, KIND_VALUES, type Harmony, type KindValue } from "./kinds";
 export { MusicXmlError, MAX_MUSICXML_BYTES } from "./xml";
 export { MXL_LIMITS } from "./mxl";

@@ -3,6 +3,7 @@
 import type { Harmony } from "./kinds";
 import { readHarmony } from "./harmony-read";
 import { isStep, type Pitch, type Transposition } from "./pitch";
+import type { Skipped } from "./report";
 import { child, children, numberOf, textOf, type XNode } from "./xml";
 
 export interface RawNote {
@@ -15,7 +16,8 @@ export interface RawNote {
 
 export interface RawMeasure {
   number: string;
-  harmonies: { pos: number; harmony: Harmony }[];
+  /** `guessed`: no <offset> and several chords before one note, so they share that note evenly. */
+  harmonies: { pos: number; harmony: Harmony; guessed?: boolean; notes?: string[] }[];
   notes: RawNote[];
   beats: number;
   beatType: number;
@@ -24,23 +26,29 @@ export interface RawMeasure {
   transpose: Transposition | null;
   rehearsal?: string;
   words: string[];
+  /** Every metronome mark, in quarter notes per minute, with how it was written. */
+  tempos: { quarters: number; unitQuarters: number; perMinute: number }[];
   tempo?: number;
+  /** MusicXML implicit="yes": a pickup or a split measure, not counted in the numbering. */
+  implicit: boolean;
+  /** How far the first voice reaches, in quarter notes. */
+  length: number;
+  /** Right-hand barline styles no repeat or final bar explains. */
+  barStyles: string[];
   repeatStart: boolean;
   repeatEnd: boolean;
   repeatTimes?: number;
   endingStart?: number;
+  /** All the passes an ending names ("1, 2" → [1, 2]). */
+  endingNumbers?: number[];
   endingStop: boolean;
   simileStart: boolean;
   simileStop: boolean;
 }
 
-export type Tally = Map<string, number>;
-
-export function bump(t: Tally, what: string, n = 1): void {
-  t.set(what, (t.get(what) ?? 0) + n);
-}
-
-const IGNORED_MEASURE_CHILDREN = new Set(["print", "figured-bass", "bookmark", "link", "grouping", "listening"]);
+// Layout and linking only: nothing a player reads.
+const IGNORED_MEASURE_CHILDREN = new Set(["print", "bookmark", "link", "grouping", "listening"]);
+const BEAT_UNIT_QUARTERS: Record<string, number> = { breve: 8, whole: 4, half: 2, quarter: 1, eighth: 0.5, "16th": 0.25, "32nd": 0.125, long: 16 };
 
 function readTransposeEl(el: XNode | undefined): Transposition | null {
   if (!el) return null;
@@ -58,146 +66,200 @@ function readPitch(p: XNode): Pitch | null {
   return { step, alter: Math.round(numberOf(p, "alter") ?? 0), octave: Math.round(octave) };
 }
 
-export function readPart(part: XNode, skipped: Tally): RawMeasure[] {
-  let divisions = 1;
-  let fifths = 0;
-  let minor = false;
-  let beats = 4;
-  let beatType = 4;
-  let transpose: Transposition | null = null;
+interface Walk {
+  rm: RawMeasure;
+  pos: number;
+  divisions: number;
+  melodyVoice: string | null;
+  /** Harmonies since the last note with no <offset>: several before one note share it. */
+  pending: RawMeasure["harmonies"];
+  skipped: Skipped;
+}
+
+function readDirection(el: XNode, w: Walk): void {
+  const { rm, skipped } = w;
+  for (const dt of children(el, "direction-type")) {
+    for (const d of dt.children) {
+      if (d.name === "rehearsal" && d.text) rm.rehearsal ??= d.text;
+      else if (d.name === "words" && d.text) rm.words.push(d.text);
+      else if (d.name === "metronome") {
+        const units = children(d, "beat-unit");
+        const perMinute = numberOf(d, "per-minute");
+        const base = BEAT_UNIT_QUARTERS[units[0]?.text ?? ""];
+        // MusicXML 4.0: the <beat-unit-dot/> elements right after a beat unit dot it
+        let dotCount = 0;
+        for (let k = d.children.indexOf(units[0] as XNode) + 1; d.children[k]?.name === "beat-unit-dot"; k++) dotCount++;
+        if (base === undefined || !perMinute || perMinute <= 0) {
+          skipped.add("tempo marks that equate two note values or give no number", rm.number);
+          continue;
+        }
+        const unitQuarters = base * (2 - 1 / 2 ** Math.min(2, dotCount));
+        rm.tempos.push({ quarters: perMinute * unitQuarters, unitQuarters, perMinute });
+      } else if (d.name === "dynamics") skipped.add("dynamics", rm.number);
+      else if (d.name === "wedge") skipped.add("hairpins", rm.number);
+      else skipped.add(`"${d.name}" directions`, rm.number);
+    }
+  }
+  const snd = child(el, "sound");
+  if (snd?.attrs.tempo && Number(snd.attrs.tempo) > 0) rm.tempo ??= Number(snd.attrs.tempo);
+}
+
+function readBarline(el: XNode, w: Walk, last: boolean): void {
+  const { rm, skipped } = w;
+  const rep = child(el, "repeat");
+  if (rep?.attrs.direction === "forward") rm.repeatStart = true;
+  if (rep?.attrs.direction === "backward") {
+    rm.repeatEnd = true;
+    const times = Number(rep.attrs.times);
+    if (Number.isInteger(times) && times > 2) rm.repeatTimes = Math.min(16, times);
+    if (Number.isInteger(times) && times > 16) skipped.add("repeats played more than 16 times, read as 16", rm.number);
+  }
+  const ending = child(el, "ending");
+  if (ending) {
+    const numbers = (ending.attrs.number ?? "1").split(/[ ,]+/).map(Number).filter((n) => Number.isInteger(n) && n >= 1);
+    if (ending.attrs.type === "start") {
+      rm.endingStart = Math.min(8, numbers[0] ?? 1);
+      if (numbers.length > 1) rm.endingNumbers = numbers;
+    } else rm.endingStop = true;
+  }
+  const style = textOf(el, "bar-style")?.trim();
+  const explained = !style || style === "regular" || (rep && /heavy/.test(style)) || (last && style === "light-heavy");
+  if (!explained && el.attrs.location !== "left") rm.barStyles.push(style);
+  else if (!explained) skipped.add(`barline styles ("${style}")`, rm.number);
+  if (child(el, "fermata")) skipped.add("fermatas", rm.number);
+  if (child(el, "segno") ?? child(el, "coda")) skipped.add("segno and coda signs", rm.number);
+}
+
+function readNote(el: XNode, w: Walk): void {
+  const { rm, skipped } = w;
+  const dur = numberOf(el, "duration") ?? 0;
+  const lyrics = children(el, "lyric").length;
+  if (lyrics) skipped.add("lyrics", rm.number, lyrics);
+  if (child(el, "grace")) return skipped.add("grace notes", rm.number);
+  if (child(el, "chord")) return skipped.add("notes stacked under the melody (chords in the staff)", rm.number);
+  const voice = textOf(el, "voice") ?? "1";
+  w.melodyVoice ??= voice;
+  if (w.pending.length > 1) {
+    // MusicXML 4.0: harmonies in a row before one note change during it; share the note evenly
+    w.pending.forEach((h, i) => {
+      h.pos += ((dur / w.divisions) * i) / w.pending.length;
+      h.guessed = true;
+    });
+  }
+  w.pending = [];
+  w.pos += dur;
+  if (voice !== w.melodyVoice || child(el, "cue")) return skipped.add("notes in other voices", rm.number);
+  rm.length = Math.max(rm.length, w.pos / w.divisions);
+  const notations = child(el, "notations");
+  if (notations?.children.some((c) => c.name !== "tied")) skipped.add("articulations, slurs and other note marks", rm.number);
+  const pitchEl = child(el, "pitch");
+  const isRest = !!child(el, "rest");
+  // an invisible rest only carries chord symbols to their beats; it is not melody
+  if (isRest && el.attrs["print-object"] === "no") return;
+  if (!pitchEl && !isRest) skipped.add("unpitched (percussion) notes", rm.number);
+  if (child(el, "time-modification")) skipped.add("tuplets", rm.number);
+  rm.notes.push({
+    pitch: pitchEl ? readPitch(pitchEl) : null,
+    quarters: dur / w.divisions,
+    type: textOf(el, "type")?.trim(),
+    dots: children(el, "dot").length,
+    tie: children(el, "tie").some((t) => t.attrs.type === "start"),
+  });
+}
+
+interface State {
+  divisions: number;
+  fifths: number;
+  minor: boolean;
+  beats: number;
+  beatType: number;
+  transpose: Transposition | null;
+}
+
+function readAttributes(el: XNode, st: State, w: Walk, first: boolean): void {
+  const d = numberOf(el, "divisions");
+  if (d && d > 0) st.divisions = w.divisions = d;
+  const key = child(el, "key");
+  if (key && numberOf(key, "fifths") !== undefined) {
+    st.fifths = Math.round(numberOf(key, "fifths") ?? 0);
+    st.minor = (textOf(key, "mode") ?? "major").trim() === "minor";
+  }
+  const time = child(el, "time");
+  const b = Number(textOf(time, "beats"));
+  const bt = Number(textOf(time, "beat-type"));
+  if (time && Number.isFinite(b) && b > 0 && Number.isFinite(bt) && bt > 0) {
+    st.beats = b;
+    st.beatType = bt;
+  }
+  const tr = child(el, "transpose");
+  if (tr) st.transpose = readTransposeEl(tr);
+  for (const mr of children(child(el, "measure-style"), "measure-repeat")) {
+    if (mr.attrs.type === "start") w.rm.simileStart = true;
+    if (mr.attrs.type === "stop") w.rm.simileStop = true;
+  }
+  if (first || w.pos === 0) Object.assign(w.rm, { beats: st.beats, beatType: st.beatType, fifths: st.fifths, minor: st.minor, transpose: st.transpose });
+}
+
+export function readPart(part: XNode, skipped: Skipped): RawMeasure[] {
+  const st: State = { divisions: 1, fifths: 0, minor: false, beats: 4, beatType: 4, transpose: null };
   let melodyVoice: string | null = null;
   const out: RawMeasure[] = [];
-
-  for (const m of children(part, "measure")) {
+  const measures = children(part, "measure");
+  measures.forEach((m, mi) => {
     const rm: RawMeasure = {
       number: m.attrs.number ?? String(out.length + 1),
-      harmonies: [], notes: [], beats, beatType, fifths, minor, transpose, words: [],
+      harmonies: [], notes: [], beats: st.beats, beatType: st.beatType, fifths: st.fifths, minor: st.minor, transpose: st.transpose,
+      words: [], tempos: [], implicit: m.attrs.implicit === "yes", length: 0, barStyles: [],
       repeatStart: false, repeatEnd: false, endingStop: false, simileStart: false, simileStop: false,
     };
-    let pos = 0;
-    const setAttrs = () => Object.assign(rm, { beats, beatType, fifths, minor, transpose });
+    const w: Walk = { rm, pos: 0, divisions: st.divisions, melodyVoice, pending: [], skipped };
     for (const el of m.children) {
       switch (el.name) {
-        case "attributes": {
-          const d = numberOf(el, "divisions");
-          if (d && d > 0) divisions = d;
-          const key = child(el, "key");
-          if (key && numberOf(key, "fifths") !== undefined) {
-            fifths = Math.round(numberOf(key, "fifths") ?? 0);
-            minor = (textOf(key, "mode") ?? "major").trim() === "minor";
-          }
-          const time = child(el, "time");
-          const b = Number(textOf(time, "beats"));
-          const bt = Number(textOf(time, "beat-type"));
-          if (time && Number.isFinite(b) && b > 0 && Number.isFinite(bt) && bt > 0) {
-            beats = b;
-            beatType = bt;
-          }
-          const tr = child(el, "transpose");
-          if (tr) transpose = readTransposeEl(tr);
-          for (const mr of children(child(el, "measure-style"), "measure-repeat")) {
-            if (mr.attrs.type === "start") rm.simileStart = true;
-            if (mr.attrs.type === "stop") rm.simileStop = true;
-          }
-          if (out.length === 0 || pos === 0) setAttrs();
+        case "attributes":
+          readAttributes(el, st, w, out.length === 0);
           break;
-        }
         case "harmony": {
           const r = readHarmony(el);
           if (!r) {
-            bump(skipped, "chord symbols without a root");
+            skipped.add("chord symbols without a root", rm.number);
             break;
           }
-          if (r.unknownKind) bump(skipped, `chord kinds not in MusicXML 4.0 ("${r.unknownKind}"), read as plain triads`);
-          const offset = numberOf(el, "offset") ?? 0;
-          rm.harmonies.push({ pos: Math.max(0, (pos + offset) / divisions), harmony: r.harmony });
+          if (r.unknownKind) skipped.add(`chord kinds not in MusicXML 4.0 ("${r.unknownKind}"), read as plain triads`, rm.number);
+          const offset = numberOf(el, "offset");
+          const h = { pos: Math.max(0, (w.pos + (offset ?? 0)) / w.divisions), harmony: r.harmony, ...(r.notes.length ? { notes: r.notes } : {}) };
+          rm.harmonies.push(h);
+          if (offset === undefined) w.pending.push(h);
           break;
         }
-        case "note": {
-          const dur = numberOf(el, "duration") ?? 0;
-          if (child(el, "grace")) {
-            bump(skipped, "grace notes");
-            break;
-          }
-          if (child(el, "chord")) {
-            bump(skipped, "notes stacked under the melody (chords in the staff)");
-            break;
-          }
-          const voice = textOf(el, "voice") ?? "1";
-          melodyVoice ??= voice;
-          pos += dur;
-          if (voice !== melodyVoice || child(el, "cue")) {
-            bump(skipped, "notes in other voices");
-            break;
-          }
-          if (children(el, "lyric").length) bump(skipped, "lyrics", children(el, "lyric").length);
-          const notations = child(el, "notations");
-          if (notations?.children.some((c) => c.name !== "tied")) bump(skipped, "articulations, slurs and other note marks");
-          const pitchEl = child(el, "pitch");
-          const isRest = !!child(el, "rest");
-          // an invisible rest only carries chord symbols to their beats; it is not melody
-          if (isRest && el.attrs["print-object"] === "no") break;
-          if (!pitchEl && !isRest) bump(skipped, "unpitched (percussion) notes");
-          rm.notes.push({
-            pitch: pitchEl ? readPitch(pitchEl) : null,
-            quarters: dur / divisions,
-            type: textOf(el, "type")?.trim(),
-            dots: children(el, "dot").length,
-            tie: children(el, "tie").some((t) => t.attrs.type === "start"),
-          });
+        case "note":
+          readNote(el, w);
           break;
-        }
         case "backup":
-          pos = Math.max(0, pos - (numberOf(el, "duration") ?? 0));
+          w.pos = Math.max(0, w.pos - (numberOf(el, "duration") ?? 0));
+          w.pending = [];
           break;
         case "forward":
-          pos += numberOf(el, "duration") ?? 0;
+          w.pos += numberOf(el, "duration") ?? 0;
+          w.pending = [];
           break;
-        case "direction": {
-          for (const dt of children(el, "direction-type")) {
-            for (const d of dt.children) {
-              if (d.name === "rehearsal" && d.text) rm.rehearsal ??= d.text;
-              else if (d.name === "words" && d.text) rm.words.push(d.text);
-              else if (d.name === "metronome") {
-                const bpm = numberOf(d, "per-minute");
-                // the chart's tempo counts the marked beat, whatever its note value
-                if (bpm) rm.tempo ??= Math.round(bpm);
-              } else if (d.name === "dynamics") bump(skipped, "dynamics");
-              else if (d.name === "wedge") bump(skipped, "hairpins");
-              else if (!["rehearsal", "words", "metronome"].includes(d.name)) bump(skipped, `"${d.name}" directions`);
-            }
-          }
-          const snd = child(el, "sound");
-          if (snd?.attrs.tempo && Number(snd.attrs.tempo) > 0) rm.tempo ??= Math.round(Number(snd.attrs.tempo));
+        case "direction":
+          readDirection(el, w);
           break;
-        }
         case "sound":
-          if (el.attrs.tempo && Number(el.attrs.tempo) > 0) rm.tempo ??= Math.round(Number(el.attrs.tempo));
+          if (el.attrs.tempo && Number(el.attrs.tempo) > 0) rm.tempo ??= Number(el.attrs.tempo);
           break;
-        case "barline": {
-          const rep = child(el, "repeat");
-          if (rep?.attrs.direction === "forward") rm.repeatStart = true;
-          if (rep?.attrs.direction === "backward") {
-            rm.repeatEnd = true;
-            const times = Number(rep.attrs.times);
-            if (Number.isInteger(times) && times > 2) rm.repeatTimes = Math.min(16, times);
-          }
-          const ending = child(el, "ending");
-          if (ending) {
-            const n = Number((ending.attrs.number ?? "1").split(/[ ,]+/)[0]);
-            if (ending.attrs.type === "start") rm.endingStart = Number.isInteger(n) && n >= 1 ? Math.min(8, n) : 1;
-            else rm.endingStop = true;
-          }
-          if (el.attrs.location !== "left" && child(el, "fermata")) bump(skipped, "fermatas");
-          const seg = child(el, "segno") ?? child(el, "coda");
-          if (seg) bump(skipped, "segno and coda signs");
+        case "barline":
+          readBarline(el, w, mi === measures.length - 1);
           break;
-        }
+        case "figured-bass":
+          skipped.add("figured bass", rm.number);
+          break;
         default:
-          if (!IGNORED_MEASURE_CHILDREN.has(el.name)) bump(skipped, `"${el.name}" elements`);
+          if (!IGNORED_MEASURE_CHILDREN.has(el.name)) skipped.add(`"${el.name}" elements`, rm.number);
       }
     }
+    melodyVoice = w.melodyVoice;
     out.push(rm);
-  }
+  });
   return out;
 }

@@ -2,6 +2,7 @@
 // entities is refused outright (billion laughs, external entities), and nothing is ever fetched.
 // Only the five predefined entities and numeric character references are decoded, by us.
 import { XMLParser } from "fast-xml-parser";
+import { assertWellFormed } from "./xml-errors";
 
 export const MAX_MUSICXML_BYTES = 5 * 1024 * 1024;
 
@@ -41,9 +42,28 @@ function safeCodePoint(cp: number, fallback: string): string {
   return Number.isFinite(cp) && cp > 0 && cp <= 0x10ffff ? String.fromCodePoint(cp) : fallback;
 }
 
+/**
+ * Where the root element starts: the prolog is read whole, however long its comments are (a fixed
+ * window let a DOCTYPE hide behind a long comment). One pass over the text.
+ */
+export function prologEnd(text: string): number {
+  let i = 0;
+  for (;;) {
+    const lt = text.indexOf("<", i);
+    if (lt < 0) return text.length;
+    const close = text.startsWith("<!--", lt) ? "-->" : text.startsWith("<?", lt) ? "?>" : null;
+    if (close) {
+      const end = text.indexOf(close, lt + 2);
+      if (end < 0) return text.length;
+      i = end + close.length;
+    } else if (text.startsWith("<!", lt)) i = lt + 2; // DOCTYPE and its internal subset
+    else return lt;
+  }
+}
+
 /** Refuses entity declarations anywhere before the root element. */
 export function assertNoEntityDeclarations(text: string): void {
-  const head = text.slice(0, Math.min(text.length, 200_000));
+  const head = text.slice(0, prologEnd(text));
   const doctype = /<!DOCTYPE/i.exec(head);
   if (!doctype) return;
   if (/<!ENTITY/i.test(text.slice(doctype.index))) {
@@ -83,6 +103,7 @@ export function parseXml(text: string): XNode {
     throw new MusicXmlError("too_large", "This MusicXML file is larger than 5 MB, the most Pedalpoint reads.");
   }
   assertNoEntityDeclarations(text);
+  assertWellFormed(text);
   const parser = new XMLParser({
     preserveOrder: true,
     ignoreAttributes: false,

@@ -135,7 +135,8 @@ export async function markChartSeen(chartId: string): Promise<void> {
   const book = getLocalBook();
   await book.transaction("rw", book.charts, async () => {
     const r = await book.charts.get(chartId);
-    if (r && (r.unseen || r.seenRevision < r.revision)) await book.charts.update(chartId, { unseen: false, seenRevision: r.revision });
+    // readFrom keeps the revision read before this one, for the "what changed" summary (components/changes).
+    if (r && (r.unseen || r.seenRevision < r.revision)) await book.charts.update(chartId, { unseen: false, seenRevision: r.revision, readFrom: r.seenRevision });
   });
 }
 

@@ -7,6 +7,7 @@ import { deleteBandData, getLocalBook } from "./db";
 import type { BootstrapResponse } from "./protocol";
 import { pullBand, type PullProgress } from "./pull";
 import { pushOutbox } from "./push";
+import { reportHoldings } from "./readiness-report";
 import {
   AccessLostError, AuthError, NetworkError, QUOTA_MESSAGE, ServerError, browserTransport, isQuotaError, type Transport,
 } from "./transport";
@@ -103,6 +104,8 @@ export class SyncEngine {
     try {
       await pushOutbox(book, this.transport, bandId, me, { force, now: this.now });
       await pullBand(book, this.transport, bandId, me, (progress) => this.set({ progress }));
+      // Readiness for tonight: what this device now holds, sent only after a pull that reached the server.
+      await reportHoldings(book, this.transport, bandId).catch(() => undefined);
       // PDF and image parts follow their metadata onto the device, for reading with no signal.
       await fetchMissingAttachmentFiles(book, bandId, { fetcher: (url, init) => this.transport.fetch(url, init) }).catch(() => undefined);
     } catch (err) {

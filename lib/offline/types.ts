@@ -59,6 +59,8 @@ export interface LocalChart {
 export interface ChartRow extends LocalChart {
   /** The revision this user last opened (or saw when the book first arrived). */
   seenRevision: number;
+  /** The revision read before the last opening: the change summary shows readFrom → revision. */
+  readFrom?: number;
   /** Deleted here, delete not yet sent. */
   deleted?: boolean;
   /** This device has edits of this chart not yet accepted by the server. */

@@ -12,7 +12,7 @@ import { requireMember, type Actor } from "./access";
 import { recordChange } from "./changes";
 import { AppError } from "./errors";
 import { readUpload, type Upload } from "./imports";
-import { sharedChartIds } from "./shares";
+import { requireChartReader } from "./chart-access";
 import { newId, nowIso } from "./tokens";
 
 export const MAX_ATTACHMENT_BYTES = 20 * 1024 * 1024;
@@ -92,12 +92,7 @@ export async function uploadAttachment(db: Kysely<Database>, actor: Actor | null
 }
 
 /** Members who read the book see a chart's parts; a sub sees those of charts shared with them. */
-async function requireReader(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string): Promise<void> {
-  const m = await requireMember(db, actor, bandId, "readSetlists");
-  if (m.role === "sub" && !(await sharedChartIds(db, bandId, m.user_id)).includes(chartId)) {
-    throw new AppError("not_found", "That chart was not found.");
-  }
-}
+const requireReader = (db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string) => requireChartReader(db, actor, bandId, chartId, "not_found");
 
 export async function listAttachments(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string): Promise<AttachmentDto[]> {
   await requireReader(db, actor, bandId, chartId);

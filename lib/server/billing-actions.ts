@@ -75,3 +75,18 @@ export function cancelPlan(db: Kysely<Database>, actor: Actor | null, bandId: st
 export function resumePlan(db: Kysely<Database>, actor: Actor | null, bandId: string): Promise<void> {
   return setCancel(db, actor, bandId, false);
 }
+
+export interface PlanPrice {
+  /** In the currency's smallest unit (cents). */
+  amount: number;
+  currency: string;
+  interval: string;
+}
+
+/** The band plan's price from the payment provider, so the leader sees it before checkout. */
+export async function planPrice(): Promise<PlanPrice | null> {
+  const cfg = paymentConfig();
+  const price = await paymentClient(cfg).prices.retrieve(cfg.priceId);
+  if (price.unit_amount === null) return null;
+  return { amount: price.unit_amount, currency: price.currency, interval: price.recurring?.interval ?? "month" };
+}

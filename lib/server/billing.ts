@@ -7,6 +7,7 @@ import type { Database } from "@/db/schema";
 import { requireMember, type Actor } from "./access";
 import { effectivePlan, subscriptionRow, type PlanId } from "./billing-store";
 import { AppError } from "./errors";
+import { planPrice, type PlanPrice } from "./billing-actions";
 
 export type { PlanId } from "./billing-store";
 export type LimitedThing = "chart" | "member";
@@ -63,6 +64,17 @@ export interface PlanStatus {
   cancelAtPeriodEnd: boolean;
   limits: { charts: number | null; members: number | null };
   usage: { charts: number; members: number };
+  /** The band plan's price as the payment provider states it; null when it cannot be asked. */
+  price: PlanPrice | null;
+}
+
+async function bandPlanPrice(): Promise<PlanPrice | null> {
+  try {
+    return await planPrice();
+  } catch (err) {
+    console.warn("the band plan's price could not be read", err);
+    return null;
+  }
 }
 
 export async function getPlanStatus(db: Kysely<Database>, actor: Actor | null, bandId: string, now = new Date()): Promise<PlanStatus> {
@@ -78,9 +90,11 @@ export async function getPlanStatus(db: Kysely<Database>, actor: Actor | null, b
     cancelAtPeriodEnd: plan === "band" && !!row?.cancel_at_period_end,
     limits: { charts: Number.isFinite(p.charts) ? p.charts : null, members: Number.isFinite(p.members) ? p.members : null },
     usage: await planUsage(db, bandId, now),
+    price: await bandPlanPrice(),
   };
 }
 
 export { startCheckout, confirmCheckout, cancelPlan, resumePlan } from "./billing-actions";
+export type { PlanPrice } from "./billing-actions";
 export { handleWebhook } from "./billing-webhook";
 export { effectivePlan, paymentConfig, WEBHOOK_TOLERANCE_SECONDS } from "./billing-store";

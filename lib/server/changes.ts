@@ -1,6 +1,7 @@
 import "server-only";
 // Every write that a device must learn about appends one row to `changes`, the delta-sync feed.
 import type { Kysely, Transaction } from "kysely";
+import { appendChange } from "@/db/feed";
 import type { Database } from "@/db/schema";
 
 export type SyncEntity =
@@ -21,18 +22,14 @@ export interface ChangeInput {
   userId?: string | null;
 }
 
+// Through db/feed so that, on PostgreSQL, seq order within a band is commit order.
 export async function recordChange(db: Kysely<Database> | Transaction<Database>, c: ChangeInput): Promise<number> {
-  const row = await db
-    .insertInto("changes")
-    .values({
-      band_id: c.bandId,
-      entity: c.entity,
-      entity_id: c.entityId,
-      op: c.op,
-      user_id: c.userId ?? null,
-      created_at: new Date().toISOString(),
-    })
-    .returning("seq")
-    .executeTakeFirstOrThrow();
-  return row.seq;
+  return appendChange(db, {
+    band_id: c.bandId,
+    entity: c.entity,
+    entity_id: c.entityId,
+    op: c.op,
+    user_id: c.userId ?? null,
+    created_at: new Date().toISOString(),
+  });
 }

@@ -4,6 +4,7 @@ import "server-only";
 import type { Kysely } from "kysely";
 import type { ChartRow, Database } from "@/db/schema";
 import { ChartTextError } from "@/lib/chart";
+import { requireChartReader } from "./chart-access";
 import { requireMember, type Actor } from "./access";
 import { prepareChart, toChartDto, type ChartDto, type ChartMeta, type PreparedChart } from "./chart-body";
 import { loadChartRow, writeRevision } from "./chart-store";
@@ -22,7 +23,7 @@ export interface RevisionDto {
 }
 
 export async function listRevisions(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string): Promise<RevisionDto[]> {
-  await requireMember(db, actor, bandId, "readBook");
+  await requireChartReader(db, actor, bandId, chartId);
   const chart = await loadChartRow(db, bandId, chartId);
   if (!chart) throw new AppError("not_found", "That chart was not found.");
   const rows = await db

@@ -4,6 +4,7 @@ import "server-only";
 import type { Kysely } from "kysely";
 import type { ChartRow, Database } from "@/db/schema";
 import { ChartCreateSchema, ChartUpdateSchema } from "@/lib/validation/chart-input";
+import { requireChartReader } from "./chart-access";
 import { requireMember, type Actor } from "./access";
 import { prepareChart, toChartDto, toChartSummary, type ChartDto, type ChartSummary } from "./chart-body";
 import { chartDto, loadChartRow, rowFields, writeRevision, type Db } from "./chart-store";
@@ -34,7 +35,7 @@ export async function listCharts(
 }
 
 export async function getChart(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string): Promise<ChartDto> {
-  await requireMember(db, actor, bandId, "readBook");
+  await requireChartReader(db, actor, bandId, chartId);
   const row = await loadChartRow(db, bandId, chartId);
   if (!row || row.deleted_at) throw new AppError("not_found", "That chart was not found.");
   return chartDto(db, row);

@@ -22,7 +22,8 @@ function parseOrThrow<T>(schema: ZodType<T>, value: unknown, where: string): T {
   const first = fields[0];
   throw new AppError(
     where === "body" ? "unprocessable" : "bad_request",
-    first ? `${first.field}: ${first.message}` : `Invalid ${where}.`,
+    // Plain words: the field's name travels in `fields`, so the form can put the message beside it.
+    first ? first.message : `Invalid ${where}.`,
     { fields },
   );
 }

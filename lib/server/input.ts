@@ -9,5 +9,5 @@ export function parseInput<T>(schema: ZodType<T>, input: unknown): T {
   if (r.success) return r.data;
   const fields = zodIssues(r.error);
   const first = fields[0];
-  throw new AppError("unprocessable", first ? `${first.field}: ${first.message}` : "Check the form.", { fields });
+  throw new AppError("unprocessable", first ? first.message : "Check the form.", { fields });
 }

@@ -6,6 +6,7 @@ import type { Database, Role } from "@/db/schema";
 import { MemberUpdateSchema, MyInstrumentSchema } from "@/lib/validation/band";
 import { RoleSchema } from "@/lib/validation/common";
 import { requireMember, type Actor } from "./access";
+import { dropMemberSubscriptions } from "./push-subscriptions";
 import { recordChange } from "./changes";
 import { AppError } from "./errors";
 import { parseInput } from "./input";
@@ -101,6 +102,7 @@ export async function removeMember(db: Kysely<Database>, actor: Actor | null, ba
     if (m.role === "leader") await assertAnotherLeader(trx, bandId, userId);
     await trx.deleteFrom("memberships").where("band_id", "=", bandId).where("user_id", "=", userId).execute();
     await recordChange(trx, { bandId, entity: "membership", entityId: userId, op: "delete" });
+    await dropMemberSubscriptions(trx, bandId, userId);
   });
   // A removed member's open sessions end, so a device left signed in stops syncing at once.
   if (!self) await endAllSessions(db, userId);

@@ -3,8 +3,8 @@ import "server-only";
 // (rate-limiter-flexible's SQL store, table `rate_limits` from migration 005), so every app process
 // sees the same counts. To move the counters to another database, change only `store()` below.
 import type { Kysely } from "kysely";
-import { RateLimiterRes, RateLimiterSQLite, type RateLimiterAbstract } from "rate-limiter-flexible";
-import { sqliteHandle } from "@/db/connection";
+import { RateLimiterPostgres, RateLimiterRes, RateLimiterSQLite, type RateLimiterAbstract } from "rate-limiter-flexible";
+import { postgresPool, sqliteHandle } from "@/db/connection";
 import type { Database } from "@/db/schema";
 import { AppError } from "./errors";
 
@@ -22,17 +22,13 @@ export interface LimitSpec {
 const made = new WeakMap<Kysely<Database>, Map<string, RateLimiterAbstract>>();
 
 function store(db: Kysely<Database>, spec: LimitSpec): RateLimiterAbstract {
+  const common = { tableName: "rate_limits", tableCreated: true, keyPrefix: spec.name, points: spec.points, duration: spec.seconds };
+  const pool = postgresPool(db);
+  // PostgreSQL: the same table through the app's pg pool (the library's Postgres store).
+  if (pool) return new RateLimiterPostgres({ ...common, storeClient: pool, storeType: "pool" });
   const sqlite = sqliteHandle(db);
-  if (!sqlite) throw new Error("rate limits need the app's SQLite handle");
-  return new RateLimiterSQLite({
-    storeClient: sqlite,
-    storeType: "better-sqlite3",
-    tableName: "rate_limits",
-    tableCreated: true,
-    keyPrefix: spec.name,
-    points: spec.points,
-    duration: spec.seconds,
-  });
+  if (!sqlite) throw new Error("rate limits need the app's SQLite handle or PostgreSQL pool");
+  return new RateLimiterSQLite({ ...common, storeClient: sqlite, storeType: "better-sqlite3" });
 }
 
 function limiterFor(db: Kysely<Database>, spec: LimitSpec): RateLimiterAbstract {
@@ -63,7 +59,7 @@ export async function consume(db: Kysely<Database>, spec: LimitSpec, key: string
 /** Whether `key` is already past the limit, without counting a try. */
 export async function isLimited(db: Kysely<Database>, spec: LimitSpec, key: string): Promise<boolean> {
   const res = await limiterFor(db, spec).get(key);
-  return res !== null && res.consumedPoints > spec.points;
+  return res !== null && res.consumedPoints >= spec.points;
 }
 
 /** Forgets the counts of `key` (a right password clears its failures). */

@@ -13,15 +13,17 @@ import { assertNotLocked, clearFailures, recordFailure } from "./login-limit";
 import { appUrl, hashToken, newToken } from "./tokens";
 import { consume, forget, isLimited, LIMITS } from "./rate-limit";
 import { endAllSessions } from "./session-version";
-import { checkPassword, findOrCreateLinkUser, findUserByEmail, toPublicUser, type PublicUser } from "./users";
+import { checkPassword, findOrCreateLinkUser, findUserByEmail, hashPassword, toPublicUser, type PublicUser } from "./users";
 
 export type SignedIn = PublicUser & { sessionVersion: number };
 
 export const LINK_MINUTES = 15;
 const MAX_OPEN_LINKS = 5;
 
-// Compared against when the account does not exist, so a wrong e-mail costs as long as a wrong password.
-const DUMMY_HASH = "$2b$10$FIgTIwpIXcMfIZ03jOxeg.GrNo.mvEoKG9pY55qTruMYKTn45FY9m";
+// Compared against when the account does not exist, so a wrong e-mail costs as long as a wrong
+// password: made once at the same work factor as real hashes.
+let dummyHash: Promise<string> | null = null;
+const DUMMY_HASH = () => (dummyHash ??= hashPassword("no account has this password"));
 
 const WRONG = "That e-mail and password do not match an account.";
 
@@ -39,7 +41,7 @@ export async function signInWithPassword(db: Kysely<Database>, email: string, pa
     throw new AppError("rate_limited", "Too many wrong passwords were tried for this account today, so its password is paused. Ask for a sign-in link instead: it still works.", { retryAfter: LIMITS.signInFailuresPerAddress.seconds });
   }
   const user = await findUserByEmail(db, address);
-  const ok = await checkPassword(password, user?.password_hash ?? DUMMY_HASH);
+  const ok = await checkPassword(password, user?.password_hash ?? (await DUMMY_HASH()));
   if (!user || !user.password_hash || !ok) {
     const failures = await recordFailure(db, lockKey, now);
     await consume(db, LIMITS.signInFailuresPerAddress, address).catch(() => undefined);

@@ -5,13 +5,14 @@ import "server-only";
 import { createHash } from "node:crypto";
 import type { Kysely } from "kysely";
 import type { Database, Membership } from "@/db/schema";
-import { bandNameRow, feedPageRows, feedRemainingCount, rosterRows } from "@/db/sync-queries";
+import { bandCursorRow, feedPageRows, feedRemainingCount, rosterRows } from "@/db/sync-queries";
 import type { PullQuery } from "@/lib/offline/protocol";
 import { requireMember, type Actor } from "./access";
 import { AppError } from "./errors";
 import { sharedSetlistIds } from "./shares";
 import { loadAnnotationFeedRows, loadSetlistFeedRows, type FeedRow } from "./setlist-feed";
 import { loadAttachments, loadCharts } from "./sync-rows";
+import { PullBody, cachedPull, handleTag, keepPull } from "./pull-cache";
 
 const PULL_ENTITIES = new Set(["chart", "setlist", "annotation", "attachment"]);
 
@@ -19,16 +20,20 @@ const PULL_ENTITIES = new Set(["chart", "setlist", "annotation", "attachment"]);
 interface Visible {
   setlists: Set<string>;
   charts: Set<string>;
+  /** Set lists ever shared with this sub: the only ones a delete may name (others' ids stay unknown). */
+  onceSetlists: Set<string>;
 }
 
 async function visibleToSub(db: Kysely<Database>, bandId: string, userId: string, now: Date): Promise<Visible> {
   const setlists = new Set(await sharedSetlistIds(db, bandId, userId, now));
+  const ever = await db.selectFrom("shares").select("setlist_id").where("band_id", "=", bandId).where("user_id", "=", userId).execute();
+  const onceSetlists = new Set([...setlists, ...ever.map((s) => s.setlist_id)]);
   const charts = new Set<string>();
   if (setlists.size > 0) {
     const entries = await db.selectFrom("setlist_entries").select("chart_id").where("setlist_id", "in", [...setlists]).execute();
     for (const e of entries) charts.add(e.chart_id);
   }
-  return { setlists, charts };
+  return { setlists, charts, onceSetlists };
 }
 
 function scopeOf(m: Membership, visible: Visible | null): string {
@@ -51,8 +56,7 @@ async function subRetractions(db: Kysely<Database>, bandId: string, visible: Vis
   const out: { key: string; json: string }[] = [];
   const charts = await db.selectFrom("charts").select("id").where("band_id", "=", bandId).execute();
   for (const c of charts) if (!visible.charts.has(c.id)) out.push({ key: `chart:${c.id}`, json: deleteJson("chart", c.id) });
-  const lists = await db.selectFrom("setlists").select("id").where("band_id", "=", bandId).execute();
-  for (const l of lists) if (!visible.setlists.has(l.id)) out.push({ key: `setlist:${l.id}`, json: deleteJson("setlist", l.id) });
+  for (const id of visible.onceSetlists) if (!visible.setlists.has(id)) out.push({ key: `setlist:${id}`, json: deleteJson("setlist", id) });
   return out;
 }
 
@@ -73,14 +77,50 @@ function upsertJson(entity: string, id: string, data: string): string {
  * access ended, which tells the device to delete the band's data.
  */
 export async function pullChanges(db: Kysely<Database>, actor: Actor | null, bandId: string, q: PullQuery, now = new Date()): Promise<string> {
+  return (await pullBody(db, actor, bandId, q, now)).text;
+}
+
+/** The same page as a PullBody (bytes and gzip made once), from the page cache when it is there. */
+export async function pullBody(db: Kysely<Database>, actor: Actor | null, bandId: string, q: PullQuery, now = new Date()): Promise<PullBody> {
   const m = await requireMember(db, actor, bandId, "belong");
   const userId = m.user_id;
-  const [band] = await bandNameRow(db, bandId);
+  const [band] = await bandCursorRow(db, bandId);
   if (!band) throw new AppError("not_found", "That band was not found.");
   const visible = m.role === "sub" ? await visibleToSub(db, bandId, userId, now) : null;
   const scope = scopeOf(m, visible);
   const rescoped = q.scope !== undefined && q.scope !== scope;
   const since = rescoped ? 0 : q.since;
+  const head = (extra: string) =>
+    `{"seq":${since},"more":false,"scope":${JSON.stringify(scope)}${extra},"band":${JSON.stringify({ id: band.id, name: band.name })},` +
+    `"membership":${JSON.stringify({ bandId, role: m.role, instrument: m.instrument, expiresAt: m.expires_at })}`;
+  // Up to date (the usual poll): the band's cursor says there is nothing after `since`, so the feed
+  // is not read. A leader's very first pull still goes the long way, for the roster.
+  if (since >= band.head && (since > 0 || m.role !== "leader")) {
+    const total = q.count === "1" ? `,"total":${visible ? visible.charts.size + visible.setlists.size : 0}` : "";
+    return new PullBody(`${head(total)},"changes":[]}`);
+  }
+  // Subs are left out of the cache: what they may see changes with the clock (shares end).
+  const key = visible ? null : JSON.stringify([handleTag(db), bandId, band.name, band.head, userId, m.role, m.instrument, m.expires_at, scope, since, q.limit, q.count ?? "0"]);
+  const hit = key ? cachedPull(key) : null;
+  if (hit) return hit;
+  const body = new PullBody(await buildPage(db, m, bandId, band, { since, rescoped, scope, visible, limit: q.limit, count: q.count === "1" }, now));
+  if (key) keepPull(key, body);
+  return body;
+}
+
+interface PageAsk {
+  since: number;
+  rescoped: boolean;
+  scope: string;
+  visible: Visible | null;
+  limit: number;
+  count: boolean;
+}
+
+async function buildPage(db: Kysely<Database>, m: Membership, bandId: string, band: { id: string; name: string }, ask: PageAsk, now: Date): Promise<string> {
+  const { since, rescoped, scope, visible } = ask;
+  const userId = m.user_id;
+  const q = { limit: ask.limit };
 
   const rows = await feedPageRows(db, bandId, userId, since, q.limit + 1);
   const more = rows.length > q.limit;
@@ -97,6 +137,11 @@ export async function pullChanges(db: Kysely<Database>, actor: Actor | null, ban
     if (visible && r.entity === "chart" && !visible.charts.has(r.entity_id)) {
       // A change addressed to this sub about a chart they can no longer see: take it off the device.
       if (r.user_id === userId) retract.add(r.seq);
+      continue;
+    }
+    if (visible && r.entity === "setlist" && !visible.setlists.has(r.entity_id)) {
+      // Another set list of the band: a sub learns nothing of it, not even its id, unless it was once theirs.
+      if (visible.onceSetlists.has(r.entity_id)) retract.add(r.seq);
       continue;
     }
     ids[r.entity]!.push(r.entity_id);
@@ -132,7 +177,7 @@ export async function pullChanges(db: Kysely<Database>, actor: Actor | null, ban
     }
   }
 
-  const total = q.count === "1" ? (visible ? visible.charts.size + visible.setlists.size : await feedRemainingCount(db, bandId, userId, since, [...PULL_ENTITIES])) : undefined;
+  const total = ask.count ? (visible ? visible.charts.size + visible.setlists.size : await feedRemainingCount(db, bandId, userId, since, [...PULL_ENTITIES])) : undefined;
   const withRoster = m.role === "leader" && (since === 0 || membershipChanged);
   const membership = { bandId, role: m.role, instrument: m.instrument, expiresAt: m.expires_at };
   let out = `{"seq":${seq},"more":${more},"scope":${JSON.stringify(scope)}`;

@@ -147,3 +147,11 @@ export function marksByBar(chart: Chart, marks: readonly Pick<MarkData, "anchor"
 export function barKey(source: { section: number; bar: number }): string {
   return `${source.section}:${source.bar}`;
 }
+
+/** The bar a player typed for a mark (1-based), or why it cannot be used: never moved to the last bar. */
+export function readMarkBar(typed: string, bars: number): { bar: number } | { error: string } {
+  const n = Number(typed.trim());
+  if (typed.trim() === "" || !Number.isInteger(n)) return { error: `Give a bar number from 1 to ${bars}.` };
+  if (n < 1 || n > bars) return { error: `This section has ${bars} ${bars === 1 ? "bar" : "bars"}: give a bar number from 1 to ${bars}.` };
+  return { bar: n };
+}

@@ -3,7 +3,7 @@
 // A sub whose share has ended loses the shared charts at the next sync.
 import { randomUUID } from "node:crypto";
 import { expect, test, type BrowserContext, type Page } from "@playwright/test";
-import { DEMO_ACCOUNTS, demoId } from "../../db/seed";
+import { DEMO_ACCOUNTS, DEMO_GIG_ID, demoId } from "../../db/seed";
 import { signIn } from "./helpers/auth";
 import { DEMO_BAND_ID } from "./helpers/demo";
 import { ChartFormPage } from "./pages/chart-form";
@@ -129,6 +129,13 @@ test.describe("no signal on the bandstand", () => {
     const leaderContext = await browser.newContext();
     const leader = await leaderContext.newPage();
     await signIn(leader, account("leader").email, account("leader").password, band);
+    // The demo seeds tonight's gig shared with this sub: withdraw it, so the sub holds only this test's share.
+    const seeded = await leader.request.get(`/api/bands/${DEMO_BAND_ID}/setlists/${DEMO_GIG_ID}/shares`);
+    for (const s of ((await seeded.json()) as { shares: { id: string; state: string }[] }).shares) {
+      if (s.state === "waiting" || s.state === "accepted") {
+        expect((await leader.request.delete(`/api/bands/${DEMO_BAND_ID}/setlists/${DEMO_GIG_ID}/shares/${s.id}`)).ok()).toBe(true);
+      }
+    }
     const list = await leader.request.post(`/api/bands/${DEMO_BAND_ID}/setlists`, {
       data: { name: `Pier dance ${randomUUID().slice(0, 4)}`, venue: "The Tide Room", entries: [{ id: randomUUID(), chartId: CHART_ID, setNumber: 1, position: 0 }] },
     });

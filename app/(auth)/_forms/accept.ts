@@ -6,6 +6,6 @@ export async function acceptInviteAndGo(token: string, bandId?: string): Promise
   const res = await fetch(`/api/invites/${encodeURIComponent(token)}/accept${q}`, { method: "POST" });
   if (!res.ok) return (await readFailure(res)).message;
   const data = (await res.json()) as { bandId: string };
-  go(`/bands/${encodeURIComponent(data.bandId)}`);
+  go(`/bands/${encodeURIComponent(data.bandId)}?joined=1`);
   return null;
 }

@@ -4,6 +4,8 @@ export interface MemberFormState {
   message: string;
   /** Field name → message, announced beside the field. */
   fields: Record<string, string>;
+  /** The error's code ("payment_required" when the plan is full), so the form can offer the way on. */
+  code?: string;
 }
 
 export const IDLE: MemberFormState = { status: "idle", message: "", fields: {} };

@@ -1,10 +1,10 @@
-// Reads the MusicXML check files copied beside these tests (MIT, see fixtures/SOURCE.md).
+// Reads the MusicXML check files in tests/fixtures/musicxml/suite (MIT, see SOURCE.md there).
 import fs from "node:fs";
 import path from "node:path";
 import { XMLParser } from "fast-xml-parser";
 import { z } from "zod";
 
-const dir = path.join(import.meta.dirname, "fixtures");
+const dir = path.join(import.meta.dirname, "../../fixtures/musicxml/suite");
 const parser = new XMLParser({ ignoreAttributes: false, parseTagValue: true });
 
 export function readFixture(name: string): unknown {

@@ -8,7 +8,7 @@ import type { Database } from "@/db/schema";
 import { confirmImport, previewImportRequest } from "@/lib/server/imports";
 import { hugeUpload, multipart, storedState } from "../attachments/upload-helpers";
 import { appError, cleanupDbs, freshDb, makeBand, outcome, type BandCast } from "../server/helpers";
-import { fixture } from "./helpers";
+import { fixture, suite } from "./helpers";
 
 let db: Kysely<Database>;
 let cast: BandCast;
@@ -44,6 +44,19 @@ describe("import preview, then confirm", () => {
     expect(saved.body.sections.map((s) => s.label)).toEqual(["A", "B"]);
     expect(saved.key).toBe("Fm");
     expect((await storedState(db, dataDir)).charts).toBe(before.charts + 1);
+  });
+
+  it("46g-PickupMeasure-Chordnames-FiguredBass.xml, once refused with one sentence, previews with its pickup kept", async () => {
+    const preview = await previewImportRequest(db, cast.arranger, cast.bandId, multipart("46g.xml", suite("46g-PickupMeasure-Chordnames-FiguredBass.xml")));
+    expect(preview.sourceText).toMatch(/^pickup: 1 beat$/m);
+    expect(preview.report.skipped).toContain("figured bass (2) — bars 0 and 1");
+  });
+
+  it("71f-AllChordTypes.xml previews with the bar and chord chart text could not keep named, the rest kept", async () => {
+    // 71f measure 9: G#/D# at beat 2½, where chart text holds one chord a beat
+    const preview = await previewImportRequest(db, cast.arranger, cast.bandId, multipart("71f.xml", suite("71f-AllChordTypes.xml")));
+    expect(preview.report.changed.join("\n")).toMatch(/left out \(G#\/D#\) \(1\) — bar 9/);
+    expect(preview.chart.sections[0]!.bars).toHaveLength(10);
   });
 
   it("players may not import", async () => {

@@ -1,10 +1,11 @@
-// Real SQLite files in a temp folder, migrated like production; actors made directly.
+// Real SQLite files in a temp folder (or, under `npm run test:pg`, a fresh PostgreSQL schema),
+// migrated like production; actors made directly.
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { randomUUID } from "node:crypto";
 import type { Kysely } from "kysely";
-import { migrateToLatest, openDatabase } from "@/db/connection";
+import { openTestDatabase } from "@/db/test-database";
 import type { Database, Role } from "@/db/schema";
 import type { Actor } from "@/lib/server/access";
 import { AppError } from "@/lib/server/errors";
@@ -14,9 +15,7 @@ const dirs: string[] = [];
 export async function freshDb(): Promise<Kysely<Database>> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "pedalpoint-test-"));
   dirs.push(dir);
-  const db = openDatabase(path.join(dir, "test.db"));
-  await migrateToLatest(db);
-  return db;
+  return openTestDatabase(path.join(dir, "test.db"));
 }
 
 export function cleanupDbs(): void {

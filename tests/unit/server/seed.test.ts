@@ -5,7 +5,7 @@ import bcrypt from "bcryptjs";
 import type { Kysely } from "kysely";
 import { parseChartText } from "@/lib/chart";
 import { DEMO_CHARTS } from "@/db/demo-charts";
-import { DEMO_ACCOUNTS, DEMO_BAND_ID, demoAccountsTable, seedDemo } from "@/db/seed";
+import { DEMO_ACCOUNTS, DEMO_BAND_ID, DEMO_GIG_ID, demoAccountsTable, seedDemo } from "@/db/seed";
 import type { Database } from "@/db/schema";
 import { listCharts } from "@/lib/server/charts";
 import { cleanupDbs, freshDb } from "./helpers";
@@ -74,7 +74,7 @@ describe("demo accounts", () => {
 describe("seedDemo", () => {
   it("creates the band, its members and its book with a revision and a change per chart", async () => {
     const r = await seedDemo(db);
-    expect(r).toEqual({ bandId: DEMO_BAND_ID, usersCreated: DEMO_ACCOUNTS.length, chartsCreated: DEMO_CHARTS.length });
+    expect(r).toEqual({ bandId: DEMO_BAND_ID, usersCreated: DEMO_ACCOUNTS.length, chartsCreated: DEMO_CHARTS.length, setlistId: DEMO_GIG_ID });
     const leader = DEMO_ACCOUNTS.find((a) => a.role === "leader");
     const row = await db.selectFrom("users").selectAll().where("email", "=", leader?.email ?? "").executeTakeFirstOrThrow();
     expect(await bcrypt.compare(leader?.password ?? "", row.password_hash ?? "")).toBe(true);

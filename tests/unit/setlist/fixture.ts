@@ -1,6 +1,6 @@
 // An in-memory database with one invented band, its people and two invented charts.
 import type { Kysely } from "kysely";
-import { migrateToLatest, openDatabase } from "@/db/connection";
+import { openTestDatabase } from "@/db/test-database";
 import type { Database, Role } from "@/db/schema";
 import { ChartSchema, type Bar, type Chart } from "@/lib/chart/model";
 import type { Actor } from "@/lib/server/access";
@@ -83,8 +83,7 @@ export async function insertChart(db: Kysely<Database>, bandId: string, id: stri
 }
 
 export async function makeWorld(): Promise<World> {
-  const db = openDatabase(":memory:");
-  await migrateToLatest(db);
+  const db = await openTestDatabase(":memory:");
   const people = {
     leader: actor("u-mira", "Mira Okafor"),
     arranger: actor("u-tomas", "Tomas Vell"),

@@ -1,7 +1,7 @@
 // Personal marks follow their bar when the leader revises the chart, and are flagged when it is gone.
 import { describe, expect, it } from "vitest";
 import { ChartSchema, type Chart } from "@/lib/chart/model";
-import { anchorFor, MarkDataSchema, marksByBar, placeAnchor, reanchorMark, type MarkData } from "@/lib/setlist";
+import { anchorFor, MarkDataSchema, marksByBar, placeAnchor, reanchorMark, readMarkBar, type MarkData } from "@/lib/setlist";
 import { bar, harbourChart } from "./fixture";
 
 function markOn(chart: Chart, section: number, barIndex: number, text = "watch the dim"): MarkData {
@@ -94,5 +94,15 @@ describe("mark anchors", () => {
   it("refuses a text mark with no text", () => {
     const r = MarkDataSchema.safeParse({ ...markOn(harbourChart(), 0, 0), text: "" });
     expect(r.success).toBe(false);
+  });
+});
+
+describe("item 7: the bar of a personal mark", () => {
+  it("refuses a bar number past the end instead of saving it at the last bar", () => {
+    expect(readMarkBar("9", 8)).toEqual({ error: "This section has 8 bars: give a bar number from 1 to 8." });
+    expect(readMarkBar("0", 8)).toHaveProperty("error");
+    expect(readMarkBar("2.5", 8)).toHaveProperty("error");
+    expect(readMarkBar("", 8)).toEqual({ error: "Give a bar number from 1 to 8." });
+    expect(readMarkBar("8", 8)).toEqual({ bar: 8 });
   });
 });

@@ -18,7 +18,7 @@ function failed(err: unknown): MemberFormState {
   if (err instanceof AppError) {
     const fields: Record<string, string> = {};
     for (const f of err.details?.fields ?? []) fields[f.field] ??= f.message;
-    return { status: "error", message: err.message, fields };
+    return { status: "error", message: err.message, fields, code: err.code };
   }
   console.error(err);
   return { status: "error", message: "Something went wrong on the server. Nothing was changed.", fields: {} };

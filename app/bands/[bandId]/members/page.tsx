@@ -79,7 +79,7 @@ export default async function MembersPage({ params }: { params: Promise<{ bandId
           Invite someone
         </h2>
         <p className="mb-4 text-sm text-ink-muted">They get an e-mail with a link that works once and expires in a week.</p>
-        <InviteForm action={inviteAction.bind(null, bandId)} />
+        <InviteForm action={inviteAction.bind(null, bandId)} bandId={bandId} />
       </section>
 
       {invites.length ? (

@@ -4,26 +4,26 @@ import { ready } from "@/db";
 import { PullQuerySchema, PushBodySchema } from "@/lib/offline/protocol";
 import { route } from "@/lib/server/handler";
 import { MB } from "@/lib/server/request-guard";
+import { announceApplied } from "@/lib/server/push-announce";
+import { pushMutations } from "@/lib/server/sync";
+import { pullBody } from "@/lib/server/sync-pull";
+import { pullResponse } from "@/lib/server/sync-response";
 
 const PUSH_MAX_BYTES = 2 * MB;
-import { pullChanges, pushMutations } from "@/lib/server/sync";
 
 export const dynamic = "force-dynamic";
 
 const Params = z.object({ bandId: z.string().min(1).max(64) });
 
-const utf8 = new TextEncoder();
-
 export const GET = route({ params: Params, query: PullQuerySchema }, async ({ actor, params, query }) => {
-  const body = await pullChanges(await ready(), actor, params.bandId, query);
-  // Bytes, not a string: a string body is measured (byteLength) and then encoded, two passes over a
-  // page that can be a few hundred KB.
-  return new Response(utf8.encode(body), { headers: { "content-type": "application/json; charset=utf-8", "cache-control": "no-store" } });
+  return pullResponse(await pullBody(await ready(), actor, params.bandId, query));
 });
 
 // A push is a device's outbox: up to 200 edits, almost all small. 2 MB bounds the work one push can
 // ask for (with the 50,000-character limit per chart text) and is refused before it is read.
 export const POST = route({ params: Params, body: PushBodySchema, maxBytes: PUSH_MAX_BYTES }, async ({ actor, params, body }) => {
-  const out = await pushMutations(await ready(), actor, params.bandId, body.mutations);
+  const db = await ready();
+  const out = await pushMutations(db, actor, params.bandId, body.mutations);
+  announceApplied(db, actor, params.bandId, body.mutations, out.results);
   return Response.json(out, { headers: { "cache-control": "no-store" } });
 });

@@ -2,6 +2,7 @@ import { z } from "zod";
 import { ready } from "@/db";
 import { deleteChart, getChart, updateChart } from "@/lib/server/charts";
 import { route } from "@/lib/server/handler";
+import { announce } from "@/lib/server/push-announce";
 import { CHART_BODY_BYTES } from "@/lib/server/request-guard";
 import { ChartParams } from "@/lib/validation/band";
 import { ChartUpdateSchema } from "@/lib/validation/chart-input";
@@ -10,9 +11,12 @@ export const GET = route({ params: ChartParams }, async ({ actor, params }) => (
   chart: await getChart(await ready(), actor, params.bandId, params.chartId),
 }));
 
-export const PUT = route({ params: ChartParams, body: ChartUpdateSchema, maxBytes: CHART_BODY_BYTES }, async ({ actor, params, body }) => ({
-  chart: await updateChart(await ready(), actor, params.bandId, params.chartId, body),
-}));
+export const PUT = route({ params: ChartParams, body: ChartUpdateSchema, maxBytes: CHART_BODY_BYTES }, async ({ actor, params, body }) => {
+  const db = await ready();
+  const chart = await updateChart(db, actor, params.bandId, params.chartId, body);
+  announce(db, { bandId: params.bandId, authorId: actor?.userId ?? null, kind: "chart", chartIds: [params.chartId] });
+  return { chart };
+});
 
 const DeleteQuery = z.object({ baseRevision: z.coerce.number().int().min(1).optional() }).strict();
 

@@ -5,10 +5,14 @@ import { route } from "@/lib/server/handler";
 import { exportChartMusicXml } from "@/lib/server/musicxml-export";
 import { ChartParams } from "@/lib/validation/band";
 
-const Query = z.object({ instrument: z.enum(INSTRUMENT_IDS).default("concert") }).strict();
+// setlist + entry: tonight's arrangement of the chart on that set list (both or neither)
+const Query = z
+  .object({ instrument: z.enum(INSTRUMENT_IDS).default("concert"), setlist: z.uuid().optional(), entry: z.uuid().optional() })
+  .strict()
+  .refine((q) => (q.setlist === undefined) === (q.entry === undefined), { message: "Give both setlist and entry, or neither", path: ["entry"] });
 
 export const GET = route({ params: ChartParams, query: Query }, async ({ actor, params, query }) => {
-  const { filename, xml } = await exportChartMusicXml(await ready(), actor, params.bandId, params.chartId, query.instrument);
+  const { filename, xml } = await exportChartMusicXml(await ready(), actor, params.bandId, params.chartId, query.instrument, query.setlist && query.entry ? { setlistId: query.setlist, entryId: query.entry } : undefined);
   return new Response(xml, {
     headers: {
       "content-type": "application/vnd.recordare.musicxml+xml; charset=utf-8",

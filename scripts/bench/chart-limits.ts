@@ -1,0 +1,91 @@
+// Chart-text safety benchmark (issue 10 item 1). Prints:
+//   - the time to check a 50,000-line chart text and a 10 MB one (both refused by the size limits
+//     before any parsing), and the time to parse the largest text the limits let through;
+//   - the longest a concurrent request would wait on the event loop (the health check's wait)
+//     while one sync push carries three such texts, for each kind. Target: under 100 ms.
+// In-process against a real SQLite file: the wait is the event loop's longest stall, measured by
+// a 1 ms timer (what a health check arriving meanwhile would sit behind).
+import os from "node:os";
+import path from "node:path";
+import fs from "node:fs";
+import { randomUUID } from "node:crypto";
+import { performance } from "node:perf_hooks";
+
+const HOOK = `export async function resolve(s, c, next) { return s === "server-only" ? { url: "data:text/javascript,", shortCircuit: true } : next(s, c); }`;
+if (!process.env.PEDALPOINT_BENCH_HOOKED) {
+  const register = `import { register } from "node:module"; register(${JSON.stringify(`data:text/javascript,${encodeURIComponent(HOOK)}`)});`;
+  const { spawnSync } = await import("node:child_process");
+  const r = spawnSync(process.execPath, ["--import", `data:text/javascript,${encodeURIComponent(register)}`, "--import", "tsx", ...process.argv.slice(1)], {
+    stdio: "inherit",
+    env: { ...process.env, PEDALPOINT_BENCH_HOOKED: "1" },
+  });
+  process.exit(r.status ?? 1);
+}
+
+const { migrateToLatest, openDatabase } = await import("../../db/connection");
+const { parseChartText } = await import("../../lib/chart");
+const { prepareChart } = await import("../../lib/server/chart-body");
+const { pushMutations } = await import("../../lib/server/sync");
+const { MutationSchema } = await import("../../lib/offline/protocol");
+
+const TEXTS = {
+  "50,000 blank lines + one bar": `${"\n".repeat(50_000)}A:\n| C |`,
+  "10 MB of bars": `A:\n${"| C7 ".repeat(2_000_000)}|`,
+  "largest allowed (50,000 chars of bars)": `A:\n${Array.from({ length: 2_000 }, () => "| Dm7 G7 | C |").join("\n")}`.slice(0, 49_990),
+};
+
+function timeCheck(text: string): { ms: number; outcome: string } {
+  const t = performance.now();
+  let outcome = "accepted";
+  try {
+    prepareChart({ title: "Bench", composer: "", key: "C", meter: "4/4", tempo: null, feel: "", sourceText: text });
+  } catch (err) {
+    outcome = `refused: ${(err as Error).message.slice(0, 60)}`;
+  }
+  return { ms: performance.now() - t, outcome };
+}
+
+/** Longest stall of a 1 ms timer while `work` runs. */
+async function longestWait(work: () => Promise<unknown>): Promise<number> {
+  let last = performance.now();
+  let worst = 0;
+  const timer = setInterval(() => {
+    const now = performance.now();
+    worst = Math.max(worst, now - last);
+    last = now;
+  }, 1);
+  await work();
+  clearInterval(timer);
+  return worst;
+}
+
+const dir = fs.mkdtempSync(path.join(os.tmpdir(), "pedalpoint-bench-limits-"));
+const db = openDatabase(path.join(dir, "bench.db"));
+await migrateToLatest(db);
+const leader = { userId: randomUUID(), email: "bench-leader@band.test", name: "Bench Leader" };
+const bandId = randomUUID();
+const now = new Date().toISOString();
+await db.insertInto("users").values({ id: leader.userId, email: leader.email, name: leader.name, password_hash: null, default_instrument: "concert", created_at: now }).execute();
+await db.insertInto("bands").values({ id: bandId, name: "Bench Band", city: null, created_by: leader.userId, created_at: now }).execute();
+await db.insertInto("memberships").values({ band_id: bandId, user_id: leader.userId, role: "leader", instrument: "concert", expires_at: null, created_at: now }).execute();
+
+parseChartText("title: warm\nkey: C\nA:\n| C |");
+for (const text of Object.values(TEXTS)) timeCheck(text); // warm up: the figures are steady-state
+console.log("chart text check (prepareChart, as the routes and sync call it):");
+for (const [name, text] of Object.entries(TEXTS)) {
+  const { ms, outcome } = timeCheck(text);
+  console.log(`  ${name.padEnd(40)} ${ms.toFixed(2).padStart(9)} ms  ${outcome}`);
+}
+console.log("health-check wait while one push carries three such texts (target < 100 ms):");
+for (const [name, text] of Object.entries(TEXTS)) {
+  const mutations = [1, 2, 3].map((n) =>
+    MutationSchema.parse({ mutationId: randomUUID(), entity: "chart", id: randomUUID(), data: { title: `Bench ${n}`, composer: "", key: "C", meter: "4/4", tempo: null, feel: "", sourceText: text, message: "" } }),
+  );
+  let statuses: string[] = [];
+  const wait = await longestWait(async () => {
+    statuses = (await pushMutations(db, leader, bandId, mutations)).results.map((r) => r.status);
+  });
+  console.log(`  ${name.padEnd(40)} ${wait.toFixed(1).padStart(9)} ms  (${statuses.join(", ")})`);
+}
+await db.destroy();
+fs.rmSync(dir, { recursive: true, force: true });
