@@ -37,6 +37,15 @@ export default defineConfig({
       ],
     },
   },
+  // Every spec on a laptop; the reading screens (bandstand view, set lists) again on a 390 px phone.
+  projects: [
+    { name: "laptop", use: { ...devices["Desktop Chrome"] } },
+    {
+      name: "phone",
+      testMatch: /(bandstand|setlist|issue16-stage)\.spec\.ts$/,
+      use: { ...devices["Desktop Chrome"], viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, hasTouch: true },
+    },
+  ],
   webServer: {
     command: process.env.E2E_SKIP_BUILD ? "npm start -- --fresh --seed" : "npm run build && npm start -- --fresh --seed",
     url: `${baseURL}/api/health`,

@@ -34,6 +34,24 @@ function isCurrent(pathname: string, item: NavItem): boolean {
   return under(item.href);
 }
 
+/** Reading views (the bandstand, playing a set) use the whole screen: no header, no sync bar. */
+export function isStagePath(pathname: string | null): boolean {
+  return /\/(bandstand|play)(\/|$)/.test(pathname ?? "");
+}
+
+/** The page's first tab stop: straight past the bars to the page's own content. */
+export function SkipLink() {
+  return (
+    <a
+      href="#main"
+      className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:bg-paper focus:px-3 focus:py-2 focus:text-ink"
+      data-testid="skip-link"
+    >
+      Skip to content
+    </a>
+  );
+}
+
 export function AppHeader() {
   const { bandId } = useBandRoute();
   const pathname = usePathname();
@@ -42,7 +60,7 @@ export function AppHeader() {
   const [leaving, setLeaving] = useState(false);
   const band = bandId ? bands?.find((b) => b.id === bandId) : undefined;
   // Reading views (the bandstand, playing a set) use the whole screen.
-  const onStage = /\/(bandstand|play)(\/|$)/.test(pathname);
+  const onStage = isStagePath(pathname);
   const items = bandId ? navFor(bandId, membership?.role === "leader", membership?.role === "leader" || membership?.role === "arranger") : [];
 
   async function signOut() {
@@ -59,9 +77,6 @@ export function AppHeader() {
   if (onStage) return null;
   return (
     <header className="no-print border-b border-ink-soft bg-ink text-paper">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:bg-paper focus:px-3 focus:py-2 focus:text-ink">
-        Skip to content
-      </a>
       <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-4 gap-y-1 px-4 py-2 sm:px-6">
         <Link href="/bands" className="flex min-h-11 items-center gap-2 font-bold tracking-tight text-paper">
           {/* eslint-disable-next-line @next/next/no-img-element */}

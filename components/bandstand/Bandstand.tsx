@@ -2,8 +2,9 @@
 // The bandstand view: one tune at a time, full screen, in a low-light theme, turned by tap or pedal.
 // Reusable for a whole set: pass several tunes, each with its own key and intro.
 import Link from "next/link";
+import { useRouter } from "next/navigation";
 import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from "react";
-import type { Chart, IntroChoice } from "@/lib/chart/model";
+import type { Chart, IntroChoice, TagEnding } from "@/lib/chart/model";
 import type { BarMark } from "@/lib/setlist/marks";
 import { useOnline } from "@/lib/offline/hooks";
 import { PagedChart, type PagedChartControls } from "@/components/chart/PagedChart";
@@ -22,6 +23,8 @@ export interface BandstandTune {
   key?: string | null;
   /** undefined: the chart's own intro if it has one; null: none. */
   intro?: IntroChoice | null;
+  /** Tonight's tag ending, drawn after the form. */
+  tag?: TagEnding | null;
   /** Shown in the tune bar, e.g. "3. Lantern Street". */
   label?: string;
   /** What comes after this tune ("Next: Copper Kettle"), shown in the bar. */
@@ -57,12 +60,39 @@ function prettyKey(k: string): string {
   return k.replace("b", "♭").replace("#", "♯");
 }
 
-/** The header's intro words: tonight's choice, the chart's own intro, or none. */
-function introWords(tune: BandstandTune, ownIntroBars: number | null): string {
-  if (tune.introText) return tune.introText;
-  if (tune.intro) return introInWords(tune.intro);
+/** The header's intro words: tonight's choice, the chart's own intro, or none. A turnaround is named by the numerals of its key. */
+function introWords(tune: BandstandTune, ownIntroBars: number | null, numerals?: string): string {
+  const named = (w: string) => (numerals ? w.replace(/I-vi-ii-V|iii-VI-ii-V/, numerals) : w);
+  if (tune.introText) return named(tune.introText);
+  if (tune.intro) return named(introInWords(tune.intro));
   return tune.intro === undefined && ownIntroBars ? `the tune's own, ${ownIntroBars} bars` : "none";
 }
+/** Escape leaves the view the way Close does (unless Escape is mapped to a pedal). */
+function useEscapeTo(href: string) {
+  const router = useRouter();
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent) => {
+      if (e.key !== "Escape" || e.defaultPrevented || e.altKey || e.ctrlKey || e.metaKey) return;
+      e.preventDefault();
+      router.push(href);
+    };
+    window.addEventListener("keydown", onKey);
+    return () => window.removeEventListener("keydown", onKey);
+  }, [href, router]);
+}
+
+/** A bar label: whole on a laptop, short on a phone (CSS shows one); the whole one names the button. */
+function Label({ long, short }: { long: string; short: string }) {
+  return (
+    <>
+      <span className="pp-long">{long}</span>
+      <span className="pp-short" aria-hidden="true">
+        {short}
+      </span>
+    </>
+  );
+}
+
 const stagePage = () => document.querySelector<HTMLElement>('.pp-bandstand-stage [data-testid="chart-page"]');
 const THEME_CLASS: Record<Theme, string> = { stage: "pp-theme-stage", ember: "pp-theme-ember" };
 
@@ -102,7 +132,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
   const performance = useMemo(() => {
     if (!tune) return null;
     try {
-      return buildPerformance({ chart: tune.chart, instrument, key: tune.key, intro: tune.intro });
+      return buildPerformance({ chart: tune.chart, instrument, key: tune.key, intro: tune.intro, tag: tune.tag });
     } catch {
       return null;
     }
@@ -124,6 +154,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
     [index, last, onTuneChange],
   );
   usePedalKeys(settings.nextKeys, settings.backKeys, turn);
+  useEscapeTo(exitHref);
 
   const goTune = (i: number) => {
     if (i < 0 || i >= tunes.length || i === index) return;
@@ -132,7 +163,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
     onTuneChange?.(i, "first");
   };
   const setTheme = (theme: Theme) => saveReadingSettings({ ...settings, theme });
-  const toggleHalf = () => saveReadingSettings({ ...settings, halfTurns: !settings.halfTurns });
+  const toggleEarlyTurn = () => saveReadingSettings({ ...settings, earlyTurn: !settings.earlyTurn });
 
   const concertKey = performance?.arrangement.concertKey ?? tune?.key ?? tune?.chart.key ?? "";
   const writtenKey = performance?.arrangement.writtenKey ?? concertKey;
@@ -156,7 +187,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
           <p className="pp-head-line pp-head-details">
             <span data-testid="head-key">{keyText}</span>
             {tune.chart.tempo ? <span data-testid="head-tempo">♩ = {tune.chart.tempo}</span> : null}
-            <span className="pp-head-intro" data-testid="head-intro">Intro: {introWords(tune, ownIntroBars)}</span>
+            <span className="pp-head-intro" data-testid="head-intro">Intro: {introWords(tune, ownIntroBars, performance?.arrangement.intro?.name)}</span>
           </p>
         ) : null}
       </section>
@@ -168,7 +199,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
             text={performance.text}
             width={size.width}
             height={size.height}
-            halfTurns={settings.halfTurns}
+            earlyTurn={settings.earlyTurn}
             startPage={entry === "last" ? "last" : 1}
             marks={tune.marks}
             following={following}
@@ -193,8 +224,15 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
           Close
         </Link>
         {tunes.length > 1 ? (
-          <button type="button" className="pp-bar-button" onClick={() => goTune(index - 1)} disabled={index === 0} data-testid="prev-tune">
-            ← Tune
+          <button
+            type="button"
+            className="pp-bar-button"
+            onClick={() => goTune(index - 1)}
+            disabled={index === 0}
+            aria-label="Previous tune"
+            data-testid="prev-tune"
+          >
+            <Label long="← Tune" short="←" />
           </button>
         ) : null}
         <span className="pp-bar-title" data-testid="tune-label">
@@ -202,7 +240,8 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
           {tunes.length > 1 ? ` (${index + 1} of ${tunes.length})` : ""}
         </span>
         {tune?.next ? (
-          <span className="pp-bar-next" data-testid="next-up">
+          // Cut short with an ellipsis, never wrapped; a phone has it in the header instead.
+          <span className="pp-bar-next" data-testid="next-up" title={tune.next}>
             {tune.next}
           </span>
         ) : null}
@@ -218,22 +257,31 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
             className={cx("pp-bar-button", ends.atEnd && index < tunes.length - 1 && "pp-bar-next-ready")}
             onClick={() => goTune(index + 1)}
             disabled={index >= tunes.length - 1}
+            aria-label="Next tune"
             data-testid="next-tune"
           >
-            Tune →
+            <Label long="Tune →" short="→" />
           </button>
         ) : null}
         {gigControls}
-        <button type="button" className="pp-bar-button" aria-pressed={settings.halfTurns} onClick={toggleHalf} data-testid="half-turns">
-          Half turns
+        <button
+          type="button"
+          className="pp-bar-button"
+          aria-pressed={settings.earlyTurn}
+          aria-label="Early turn"
+          onClick={toggleEarlyTurn}
+          data-testid="early-turn"
+        >
+          <Label long="Early turn" short="Early" />
         </button>
         <button
           type="button"
           className="pp-bar-button"
           onClick={() => setTheme(settings.theme === "stage" ? "ember" : "stage")}
+          aria-label={settings.theme === "stage" ? "Night light" : "Stage light"}
           data-testid="theme-toggle"
         >
-          {settings.theme === "stage" ? "Night light" : "Stage light"}
+          <Label long={settings.theme === "stage" ? "Night light" : "Stage light"} short={settings.theme === "stage" ? "Night" : "Stage"} />
         </button>
         {!online ? (
           <span className="pp-offline" data-testid="offline-badge" role="status">

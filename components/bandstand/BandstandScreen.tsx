@@ -30,7 +30,7 @@ export function BandstandScreen() {
   const ids = useMemo(() => (choices.list ? choices.list.split(",").map((s) => s.trim()).filter(Boolean) : []), [choices.list]);
   const { tunes, start } = useMemo(() => {
     if (!local) return { tunes: [] as BandstandTune[], start: 0 };
-    const own: BandstandTune = { chart: local.body, key: choices.key, intro: choices.intro };
+    const own: BandstandTune = { chart: local.body, key: choices.key, intro: choices.intro, tag: choices.tag };
     if (ids.length < 2 || !charts) return { tunes: [own], start: 0 };
     const byId = new Map(charts.map((c) => [c.id, c]));
     const listed = ids.flatMap((id) => {
@@ -42,7 +42,7 @@ export function BandstandScreen() {
     if (at < 0) return { tunes: [own], start: 0 };
     const tunes = listed.map((t, i) => ({ ...t.tune, label: `${i + 1}. ${t.tune.chart.title}`, nextTitle: listed[i + 1]?.tune.chart.title }));
     return { tunes, start: at };
-  }, [local, charts, ids, choices.key, choices.intro]);
+  }, [local, charts, ids, choices.key, choices.intro, choices.tag]);
 
   if (!bandId || !chartId) return null;
   if (local === undefined) return <p className="p-6">Opening the chart…</p>;

@@ -1,5 +1,5 @@
 "use client";
-// Reading settings for this device: which keys a page-turn pedal sends, the bandstand light, half turns.
+// Reading settings for this device: which keys a page-turn pedal sends, the bandstand light, the early turn.
 import Link from "next/link";
 import { useEffect, useState } from "react";
 import { Button } from "@/components/ui/Button";
@@ -10,14 +10,16 @@ type Which = "nextKeys" | "backKeys";
 
 function KeyList({ which, title, settings }: { which: Which; title: string; settings: ReadingSettings }) {
   const [listening, setListening] = useState(false);
-  const [message, setMessage] = useState("");
+  // The key a message speaks of: once that key leaves this list, the message no longer holds.
+  const [said, setMessage] = useState<{ text: string; key?: string }>({ text: "" });
+  const message = said.key === undefined || settings[which].includes(said.key) ? said.text : "";
   useEffect(() => {
     if (!listening) return;
     const onKey = (e: KeyboardEvent) => {
       e.preventDefault();
       e.stopPropagation();
       setListening(false);
-      if (e.key === "Escape") return setMessage("Nothing added.");
+      if (e.key === "Escape") return setMessage({ text: "Nothing added." });
       const other: Which = which === "nextKeys" ? "backKeys" : "nextKeys";
       const next = {
         ...settings,
@@ -25,7 +27,7 @@ function KeyList({ which, title, settings }: { which: Which; title: string; sett
         [other]: settings[other].filter((k) => k !== e.key),
       };
       saveReadingSettings(next);
-      setMessage(`${keyName(e.key)} now turns ${which === "nextKeys" ? "forward" : "back"}.`);
+      setMessage({ text: `${keyName(e.key)} now turns ${which === "nextKeys" ? "forward" : "back"}.`, key: e.key });
     };
     window.addEventListener("keydown", onKey, { capture: true });
     return () => window.removeEventListener("keydown", onKey, { capture: true });
@@ -64,6 +66,16 @@ function KeyList({ which, title, settings }: { which: Which; title: string; sett
 export function SettingsScreen() {
   const settings = useReadingSettings();
   const setTheme = (theme: Theme) => saveReadingSettings({ ...settings, theme });
+  // A reset remounts the key lists, so no "… now turns forward" is left describing a key it removed.
+  const [resets, setResets] = useState(0);
+  const [resetMessage, setResetMessage] = useState("");
+  const reset = () => {
+    saveReadingSettings(DEFAULT_SETTINGS);
+    setResets((n) => n + 1);
+    setResetMessage(
+      `Back to the usual settings: ${DEFAULT_SETTINGS.nextKeys.map(keyName).join(", ")} turn forward; ${DEFAULT_SETTINGS.backKeys.map(keyName).join(", ")} turn back.`,
+    );
+  };
   return (
     <PageColumn>
       <Link href="/bands" className="mb-2 inline-block text-sm text-ink-muted underline-offset-4 hover:underline">
@@ -71,8 +83,8 @@ export function SettingsScreen() {
       </Link>
       <PageTitle lead="Kept on this device only: each stand has its own pedal and its own light.">Reading settings</PageTitle>
       <div className="flex flex-col gap-5">
-        <KeyList which="nextKeys" title="Keys that turn forward" settings={settings} />
-        <KeyList which="backKeys" title="Keys that turn back" settings={settings} />
+        <KeyList key={`next-${resets}`} which="nextKeys" title="Keys that turn forward" settings={settings} />
+        <KeyList key={`back-${resets}`} which="backKeys" title="Keys that turn back" settings={settings} />
         <fieldset className="rounded-lg border border-paper-dim bg-white p-4">
           <legend className="px-1 text-lg font-semibold">Bandstand light</legend>
           {(
@@ -91,21 +103,24 @@ export function SettingsScreen() {
           <input
             type="checkbox"
             className="size-5"
-            checked={settings.halfTurns}
-            onChange={(e) => saveReadingSettings({ ...settings, halfTurns: e.target.checked })}
-            data-testid="half-turns-setting"
+            checked={settings.earlyTurn}
+            onChange={(e) => saveReadingSettings({ ...settings, earlyTurn: e.target.checked })}
+            data-testid="early-turn-setting"
           />
           <span>
-            <span className="font-semibold">Half turns</span>
+            <span className="font-semibold">Early turn</span>
             <span className="block text-sm text-ink-muted">
-              Before each full turn, the lower half of the screen shows the top of the next page, so you can read on while it changes.
+              One press before each page ends, the next page&apos;s first lines rise into place under a thin brass rule marked &ldquo;next&rdquo;, so you read on while the rest of the page turns.
             </span>
           </span>
         </label>
         <div>
-          <Button tone="quiet" onClick={() => saveReadingSettings(DEFAULT_SETTINGS)}>
+          <Button tone="quiet" onClick={reset} data-testid="settings-reset">
             Back to the usual settings
           </Button>
+          <p aria-live="polite" className="mt-2 text-sm text-ink-muted" data-testid="settings-reset-msg">
+            {resetMessage}
+          </p>
         </div>
       </div>
     </PageColumn>

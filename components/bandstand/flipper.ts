@@ -1,28 +1,28 @@
 // Page turns as a swap of what is visible: every page is already drawn into its own sheet, so a turn
 // changes a few attributes and classes and the browser paints it in the next frame. Nothing here
 // re-renders React.
-import { step, viewLabel, viewPage, viewSequence, type View } from "@/lib/render/half";
+import { step, viewLabel, viewPage, viewSequence, type View } from "@/lib/render/early-turn";
 
 export interface SheetGeometry {
-  /** Where the bottom half of each page begins, as a fraction of the page's height (index 0 = page 1). */
-  halfFractions: number[];
+  /** Where each page's early-turn split sits, as a fraction of the page's height (index 0 = page 1). */
+  earlyTurnFractions: number[];
 }
 
 export class PageFlipper {
   private views: View[];
   private index = 0;
-  private halfHost: HTMLElement | null = null;
-  private preparedHalf = -1;
+  private earlyHost: HTMLElement | null = null;
+  private preparedEarly = -1;
 
   constructor(
     private readonly root: HTMLElement,
     private readonly pageCount: number,
     private readonly geometry: SheetGeometry,
     private readonly live: HTMLElement | null,
-    halfTurns: boolean,
+    earlyTurn: boolean,
     private readonly onChange?: (view: View, index: number, views: View[]) => void,
   ) {
-    this.views = viewSequence(pageCount, halfTurns);
+    this.views = viewSequence(pageCount, earlyTurn);
     this.apply(false);
   }
 
@@ -51,11 +51,11 @@ export class PageFlipper {
     }
   }
 
-  setHalfTurns(on: boolean): void {
+  setEarlyTurn(on: boolean): void {
     const page = viewPage(this.view);
     this.views = viewSequence(this.pageCount, on);
     this.index = Math.max(0, this.views.findIndex((v) => v.kind === "full" && v.page === page));
-    this.preparedHalf = -1;
+    this.preparedEarly = -1;
     this.apply(false);
   }
 
@@ -69,47 +69,54 @@ export class PageFlipper {
     for (const el of this.root.querySelectorAll<HTMLElement>("[data-sheet]")) {
       el.classList.toggle("pp-shown", Number(el.dataset.sheet) === shown);
     }
-    if (view.kind === "half") this.showHalf(this.index);
-    else this.halfHost?.classList.remove("pp-shown");
+    if (view.kind === "early") this.showEarly(this.index);
+    else this.earlyHost?.classList.remove("pp-shown");
     this.root.dataset.page = String(viewPage(view));
     this.root.dataset.view = view.kind;
     if (announce && this.live) this.live.textContent = viewLabel(view, this.pageCount);
     this.onChange?.(view, this.index, this.views);
-    // Build the next half view while the player reads, so that turn is a swap too.
+    // Build the next early-turn view while the player reads, so that turn is a swap too.
     const ahead = this.views[this.index + 1];
-    if (ahead?.kind === "half") setTimeout(() => this.prepareHalf(this.index + 1), 0);
+    if (ahead?.kind === "early") setTimeout(() => this.prepareEarly(this.index + 1), 0);
   }
 
-  private showHalf(index: number): void {
-    this.prepareHalf(index);
-    this.halfHost?.classList.add("pp-shown");
+  private showEarly(index: number): void {
+    this.prepareEarly(index);
+    this.earlyHost?.classList.add("pp-shown");
   }
 
-  private prepareHalf(index: number): void {
+  private prepareEarly(index: number): void {
     const view = this.views[index];
-    if (view?.kind !== "half" || this.preparedHalf === index) return;
+    if (view?.kind !== "early" || this.preparedEarly === index) return;
     const top = this.sheet(view.top)?.querySelector("svg");
     const bottom = this.sheet(view.bottom)?.querySelector("svg");
     if (!top || !bottom) return;
-    if (!this.halfHost) {
-      this.halfHost = document.createElement("div");
-      this.halfHost.className = "pp-half";
-      this.halfHost.setAttribute("aria-hidden", "true");
-      this.root.appendChild(this.halfHost);
+    if (!this.earlyHost) {
+      this.earlyHost = document.createElement("div");
+      this.earlyHost.className = "pp-early";
+      this.earlyHost.setAttribute("aria-hidden", "true");
+      this.root.appendChild(this.earlyHost);
     }
-    const split = (p: number) => this.geometry.halfFractions[p - 1] ?? 0.5;
+    const split = (p: number) => this.geometry.earlyTurnFractions[p - 1] ?? 0.5;
     const upper = document.createElement("div");
-    upper.className = "pp-half-top";
+    upper.className = "pp-early-rest";
     upper.style.height = `${(1 - split(view.top)) * 100}%`;
     const topClone = top.cloneNode(true) as SVGSVGElement;
     topClone.style.transform = `translateY(-${split(view.top) * 100}%)`;
     upper.appendChild(wrap(topClone, 1 / (1 - split(view.top))));
+    // The next page's first systems, under a thin brass rule with a small "next" in the margin;
+    // CSS makes them rise into place each time this view is shown.
     const lower = document.createElement("div");
-    lower.className = "pp-half-bottom";
+    lower.className = "pp-early-next";
     lower.style.height = `${split(view.bottom) * 100}%`;
-    lower.appendChild(wrap(bottom.cloneNode(true) as SVGSVGElement, 1 / split(view.bottom)));
-    this.halfHost.replaceChildren(upper, lower);
-    this.preparedHalf = index;
+    const rising = wrap(bottom.cloneNode(true) as SVGSVGElement, 1 / split(view.bottom));
+    rising.classList.add("pp-early-rise");
+    const marker = document.createElement("span");
+    marker.className = "pp-early-marker";
+    marker.textContent = "next";
+    lower.append(rising, marker);
+    this.earlyHost.replaceChildren(upper, lower);
+    this.preparedEarly = index;
   }
 }
 

@@ -1,5 +1,5 @@
 // Reading settings kept on this device only (pedals and light differ per stand): which keys turn
-// pages, the bandstand theme, half turns, and the last instrument chosen per band.
+// pages, the bandstand theme, the early turn, and the last instrument chosen per band.
 import { useSyncExternalStore } from "react";
 import { z } from "zod";
 
@@ -10,7 +10,8 @@ export const ReadingSettingsSchema = z.object({
   nextKeys: z.array(z.string().min(1).max(40)).max(8),
   backKeys: z.array(z.string().min(1).max(40)).max(8),
   theme: z.enum(THEMES),
-  halfTurns: z.boolean(),
+  // Defaulted so an entry saved before this setting existed keeps its pedal keys.
+  earlyTurn: z.boolean().default(false),
 });
 export type ReadingSettings = z.infer<typeof ReadingSettingsSchema>;
 
@@ -18,7 +19,7 @@ export const DEFAULT_SETTINGS: ReadingSettings = {
   nextKeys: ["PageDown", "ArrowRight", "ArrowDown", " "],
   backKeys: ["PageUp", "ArrowLeft", "ArrowUp"],
   theme: "stage",
-  halfTurns: false,
+  earlyTurn: false,
 };
 
 const STORE_KEY = "pedalpoint.reading";

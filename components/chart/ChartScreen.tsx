@@ -13,7 +13,7 @@ import { Button, buttonClass } from "@/components/ui/Button";
 import { Notice } from "@/components/ui/Notice";
 import { suggestIntros } from "./core";
 import { PagedChart, type PagedChartControls } from "./PagedChart";
-import { InstrumentPicker, IntroPicker, KeyPicker } from "./Pickers";
+import { InstrumentPicker, IntroPicker, KeyPicker, partReader } from "./Pickers";
 import { PrintSheets } from "./PrintSheets";
 import { MarksPanel } from "@/components/marks/MarksPanel";
 import { NotSharedWithSub } from "@/components/library/SubNotices";
@@ -44,19 +44,21 @@ export function ChartScreen() {
     try {
       // A set list's tempo for tonight replaces the chart's own in the title block.
       const played = choices.tempo ? { ...chart, tempo: choices.tempo } : chart;
-      return { ok: true as const, ...buildPerformance({ chart: played, instrument: choices.instrument, key: choices.key, intro: choices.intro }) };
+      return { ok: true as const, ...buildPerformance({ chart: played, instrument: choices.instrument, key: choices.key, intro: choices.intro, tag: choices.tag }) };
     } catch (e) {
       return { ok: false as const, message: e instanceof Error ? e.message : String(e) };
     }
-  }, [chart, choices.instrument, choices.key, choices.tempo, choices.intro]);
+  }, [chart, choices.instrument, choices.key, choices.tempo, choices.intro, choices.tag]);
+  const concertKey = choices.key ?? chart?.key ?? "";
   const intros = useMemo<IntroResult[]>(() => {
     if (!chart) return [];
     try {
-      return suggestIntros(chart);
+      // The advice names chords as this player reads them (their part, tonight's key).
+      return suggestIntros(chart, partReader({ chartKey: chart.key, concertKey, instrument: choices.instrument }));
     } catch {
       return [];
     }
-  }, [chart]);
+  }, [chart, concertKey, choices.instrument]);
 
   if (!bandId || !chartId) return null;
   if (local === undefined) return <p className="p-6 text-ink-muted">Opening the chart…</p>;

@@ -9,7 +9,7 @@ import type { Arrangement } from "@/lib/chart/model";
 import type { BarMark } from "@/lib/setlist/marks";
 import { layoutChart } from "@/lib/render/layout";
 import type { LayoutOptions } from "@/lib/render/types";
-import type { View } from "@/lib/render/half";
+import type { View } from "@/lib/render/early-turn";
 import { PageFlipper } from "@/components/bandstand/flipper";
 import { ChartPreview } from "./ChartPreview";
 import type { DrawJob } from "./draw-sheets";
@@ -46,7 +46,7 @@ export interface PagedChartProps {
   text: PageText;
   width: number;
   height: number;
-  halfTurns?: boolean;
+  earlyTurn?: boolean;
   /** Page shown first when drawn (read once, on mount): 1-based, or the last page. */
   startPage?: number | "last";
   layout?: Partial<LayoutOptions>;
@@ -66,7 +66,7 @@ export function PagedChart({
   text,
   width,
   height,
-  halfTurns = false,
+  earlyTurn = false,
   startPage = 1,
   layout: extra,
   label,
@@ -121,9 +121,9 @@ export function PagedChart({
         flipper.current = new PageFlipper(
           el,
           pages,
-          { halfFractions: layout.pages.map((p) => p.halfY / p.height) },
+          { earlyTurnFractions: layout.pages.map((p) => p.earlyTurnY / p.height) },
           live.current,
-          halfTurns,
+          earlyTurn,
           (view, index, views) => {
             // A page not drawn yet (a jump) is drawn before this frame; the one after it next task.
             if (placed) sheets.show(Number(el.dataset.page));
@@ -143,7 +143,7 @@ export function PagedChart({
       gone = true;
       job?.cancel();
     };
-  }, [layout, arrangement.writtenKey, textKey, halfTurns, marksKey]);
+  }, [layout, arrangement.writtenKey, textKey, earlyTurn, marksKey]);
 
   const previewPage = layout && !engraved ? layout.pages[Math.max(1, Math.min(firstPage === "last" ? Infinity : firstPage, layout.pages.length)) - 1] : undefined;
   return (

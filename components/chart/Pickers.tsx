@@ -2,6 +2,7 @@
 // The reading choices on the chart page: the part (instrument), a singer's key, and how the tune starts.
 import { useId } from "react";
 import type { IntroKind, IntroResult } from "@/lib/chart/model";
+import { prettyMusic, type IntroReader } from "@/lib/chart/intro-reader";
 import { INSTRUMENT_IDS, INSTRUMENTS } from "@/lib/music/instruments";
 import { transposeChord, transposeChordToKey } from "@/lib/music";
 import { CONTROL } from "@/components/ui/Field";
@@ -88,6 +89,12 @@ export function readChord(symbol: string, part: PreviewPart): string {
   } catch {
     return symbol; // a symbol the music core cannot read is shown as written
   }
+}
+
+/** The intro advice's reader for this part: every chord, note and key as the player reads it, ♭/♯ spelled. */
+export function partReader(part: PreviewPart): IntroReader {
+  const read = (s: string) => prettyMusic(readChord(s, part));
+  return { chord: read, note: read, key: read };
 }
 
 function previewBars(result: IntroResult, part: PreviewPart): string[] {

@@ -70,8 +70,13 @@ function drawBar(ctx: RenderContext, layout: ChartLayout, b: PlacedBar, system: 
   if (b.bar.repeatStart) stave.setBegBarType(Barline.type.REPEAT_BEGIN);
   stave.setEndBarType(endBarline(b));
   stave.setContext(ctx).draw();
-  if (b.bar.repeatTimes && b.bar.repeatEnd) {
-    addText(ctx, `×${b.bar.repeatTimes}`, b.x + b.width - 4, system.staffY + 58, { size: 14, anchor: "end", italic: true });
+  const under = system.staffY + 58;
+  let direction = b.bar.direction ?? "";
+  if (b.bar.repeatTimes && b.bar.repeatEnd) direction = direction ? `${direction} · ×${b.bar.repeatTimes}` : `×${b.bar.repeatTimes}`;
+  if (direction) {
+    // Under the staff: at the repeat sign it belongs to, else where the bar's beats start.
+    const atEnd = b.bar.repeatEnd;
+    addText(ctx, direction, atEnd ? b.x + b.width - 4 : b.noteX, under, { size: 14, anchor: atEnd ? "end" : "start", italic: true, cls: "pp-direction" });
   }
 
   let notes: Note[];
@@ -107,11 +112,10 @@ function drawSymbols(ctx: RenderContext, layout: ChartLayout, b: PlacedBar, syst
 
 function drawLabels(ctx: RenderContext, b: PlacedBar, system: System) {
   const top = system.y + 2;
-  let x = b.x;
-  if (b.label) x += drawLabelBox(ctx, b.label, b.x, top, LABEL_FONT, b.intro) + 8;
+  if (b.label) drawLabelBox(ctx, b.label, b.x, system.labelY, LABEL_FONT, b.intro);
   if (b.endingStart || b.endingEnd || b.bar.ending !== null) {
     drawEndingBracket(ctx, {
-      x1: b.endingStart ? x : b.x,
+      x1: b.endingStart ? b.endingX : b.x,
       x2: b.x + b.width - (b.endingEnd ? 6 : 0),
       y: top + 4,
       label: b.endingStart && b.bar.ending !== null ? `${b.bar.ending}.` : null,
@@ -121,22 +125,35 @@ function drawLabels(ctx: RenderContext, b: PlacedBar, system: System) {
   }
 }
 
+/** A title that fits `room`: smaller down to `min`, then cut with an ellipsis (the page names it whole). */
+export function fitTitle(title: string, size: number, room: number, min = 16): { text: string; size: number } {
+  const wide = textWidth(title, size);
+  if (wide <= room) return { text: title, size };
+  const fitted = Math.max(min, Math.floor((size * room) / wide));
+  if (textWidth(title, fitted) <= room) return { text: title, size: fitted };
+  const chars = [...title];
+  while (chars.length > 1 && textWidth(chars.join("") + "…", fitted) > room) chars.pop();
+  return { text: chars.join("").trimEnd() + "…", size: fitted };
+}
+
 function drawHeader(ctx: RenderContext, page: Page, text: PageText) {
   if (!page.header) return;
   const y = page.header.y;
   if (page.header.compact) {
     // A desk read: title left, details and composer on one line under it, all smaller.
-    addText(ctx, text.title, 16, y + 20, { size: 22, bold: true, cls: "pp-title" });
+    const t = fitTitle(text.title, 22, page.width - 32);
+    addText(ctx, t.text, 16, y + 20, { size: t.size, bold: true, cls: "pp-title" }).setAttribute("data-title", text.title);
     if (text.details) addText(ctx, text.details, 16, y + 38, { size: 13, bold: true, cls: "pp-details" });
     // The composer goes where it fits; on a very narrow page it is left to the chart's details below.
-    const besideTitle = textWidth(text.title, 22) + textWidth(text.composer, 13) + 48 <= page.width;
+    const besideTitle = textWidth(t.text, t.size) + textWidth(text.composer, 13) + 48 <= page.width;
     const besideDetails = textWidth(text.details, 13) + textWidth(text.composer, 13) + 48 <= page.width;
     if (text.composer && (besideTitle || besideDetails)) {
       addText(ctx, text.composer, page.width - 16, besideTitle ? y + 20 : y + 38, { size: 13, anchor: "end", italic: true, cls: "pp-composer" });
     }
     return;
   }
-  addText(ctx, text.title, page.width / 2, y + 30, { size: 28, anchor: "middle", bold: true, cls: "pp-title" });
+  const t = fitTitle(text.title, 28, page.width - 32);
+  addText(ctx, t.text, page.width / 2, y + 30, { size: t.size, anchor: "middle", bold: true, cls: "pp-title" }).setAttribute("data-title", text.title);
   // Details left and composer right share a line when both fit; on a narrow page the composer goes
   // up under the title.
   const fits = textWidth(text.details, 15) + textWidth(text.composer, 15) + 48 <= page.width;
@@ -167,7 +184,12 @@ export function engravePage(host: HTMLElement, input: EngraveInput): SVGSVGEleme
   svg.setAttribute("aria-label", `${text.title}, ${text.partLabel}, page ${page.number}`);
 
   addText(ctx, text.partLabel, page.width - 12, 18, { size: 16, anchor: "end", bold: true, cls: "pp-part" });
-  if (page.number > 1) addText(ctx, `${text.title} · ${page.number}`, 12, 18, { size: 14, cls: "pp-running" });
+  if (page.number > 1) {
+    // The running title gives way to the part label in the corner.
+    const room = page.width - 24 - textWidth(text.partLabel, 16) - 12 - textWidth(` · ${page.number}`, 14);
+    const t = fitTitle(text.title, 14, room, 12);
+    addText(ctx, `${t.text} · ${page.number}`, 12, 18, { size: t.size, cls: "pp-running" });
+  }
   drawHeader(ctx, page, text);
 
   const key = vexKey(input.writtenKey);
@@ -177,6 +199,7 @@ export function engravePage(host: HTMLElement, input: EngraveInput): SVGSVGEleme
       // Our own class names (VexFlow would prefix them), for print styles and outside checks.
       group?.setAttribute("class", b.intro ? "pp-bar pp-intro" : "pp-bar");
       group?.setAttribute("data-bar", String(b.bar.index));
+      group?.setAttribute("data-part", b.bar.part);
       if (b.bar.source) group?.setAttribute("data-source", barKey(b.bar.source));
       const notes = drawBar(ctx, layout, b, system, key, input.slashes ?? true);
       const next = system.bars[i + 1];

@@ -1,7 +1,7 @@
 // The chart's reading choices as they sit in the address: ?instrument=bb&intro=vamp&introBars=4&key=F&tempo=132.
 // Parsed with zod at this boundary; anything unreadable falls back to the default instead of failing.
 import { z } from "zod";
-import { IntroChoiceSchema, IntroKindSchema, type IntroChoice } from "@/lib/chart/model";
+import { IntroChoiceSchema, IntroKindSchema, type IntroChoice, type TagEnding } from "@/lib/chart/model";
 import { INSTRUMENT_IDS, type InstrumentId } from "@/lib/music/instruments";
 
 export interface ChartParams {
@@ -11,6 +11,8 @@ export interface ChartParams {
   tempo: number | null;
   /** undefined: the chart's own default (its composed intro, if any); null: no intro ("none"). */
   intro: IntroChoice | null | undefined;
+  /** Tonight's tag ending (?tag=4x3: the last 4 bars three more times); null: none. */
+  tag: TagEnding | null;
 }
 
 interface ReadableParams {
@@ -21,6 +23,12 @@ const Instrument = z.enum(INSTRUMENT_IDS);
 const Key = z.string().regex(/^[A-G][b#]?m?$/);
 const Count = z.coerce.number().int().min(1).max(64);
 const Tempo = z.coerce.number().int().min(20).max(400);
+const Tag = z
+  .string()
+  .regex(/^\d{1,2}x\d{1,2}$/)
+  .transform((s) => s.split("x").map(Number) as [number, number])
+  .refine(([bars, times]) => bars >= 1 && bars <= 16 && times >= 1 && times <= 8)
+  .transform(([bars, times]): TagEnding => ({ bars, times }));
 
 function optional<T>(schema: z.ZodType<T>, value: string | null): T | undefined {
   if (value === null || value === "") return undefined;
@@ -49,6 +57,7 @@ export function parseChartParams(params: ReadableParams): ChartParams {
     key: optional(Key, params.get("key")) ?? null,
     tempo: optional(Tempo, params.get("tempo")) ?? null,
     intro,
+    tag: optional(Tag, params.get("tag")) ?? null,
   };
 }
 
@@ -58,6 +67,7 @@ export function chartQuery(p: {
   key?: string | null;
   tempo?: number | null;
   intro?: IntroChoice | null;
+  tag?: TagEnding | null;
   list?: string | null;
 }): string {
   // `intro: null` is written as intro=none; `undefined` leaves the chart's default.
@@ -74,6 +84,7 @@ export function chartQuery(p: {
     if (p.intro.variant) q.set("variant", p.intro.variant);
     if (p.intro.vamp) q.set("vamp", p.intro.vamp.join(" "));
   }
+  if (p.tag) q.set("tag", `${p.tag.bars}x${p.tag.times}`);
   if (p.list) q.set("list", p.list);
   const s = q.toString();
   return s ? `?${s}` : "";

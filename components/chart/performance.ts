@@ -1,5 +1,5 @@
 // From a chart and the reader's choices to what gets laid out: the arrangement and the page text.
-import type { Arrangement, Chart, IntroChoice } from "@/lib/chart/model";
+import type { Arrangement, Chart, IntroChoice, TagEnding } from "@/lib/chart/model";
 import { arrange } from "./core";
 import { partLabel } from "@/lib/render/part-label";
 import type { PageText } from "./engrave";
@@ -10,6 +10,8 @@ export interface PerformanceChoice {
   key?: string | null;
   /** undefined plays the chart's composed intro if it has one; null none. */
   intro?: IntroChoice | null;
+  /** Tonight's tag ending, drawn after the form. */
+  tag?: TagEnding | null;
 }
 
 export interface Performance {
@@ -28,6 +30,7 @@ export function buildPerformance(choice: PerformanceChoice): Performance {
     instrument: choice.instrument,
     key: choice.key ?? undefined,
     intro: choice.intro,
+    tag: choice.tag ?? null,
   });
   const c = choice.chart;
   const details = [c.feel, c.tempo ? `♩ = ${c.tempo}` : "", `Key of ${prettyKeyName(arrangement.writtenKey)}`].filter(Boolean).join(" · ");

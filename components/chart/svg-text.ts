@@ -1,7 +1,7 @@
 // Text, boxes and brackets drawn straight into VexFlow's SVG. Chord symbols are one <text> with a
 // raised <tspan> for extensions, so the browser places the parts and nothing needs measuring.
 import type { RenderContext } from "./vexflow";
-import { SUPERSCRIPT_SCALE, labelBoxWidth, splitSymbol } from "@/lib/render/metrics";
+import { ENDING_LABEL_SIZE, SUPERSCRIPT_SCALE, labelBoxWidth, splitSymbol } from "@/lib/render/metrics";
 import { chordParts } from "./chord-parts";
 
 const NS = "http://www.w3.org/2000/svg";
@@ -66,7 +66,7 @@ export function drawLabelBox(ctx: RenderContext, label: string, x: number, top: 
   const w = labelBoxWidth(label, size);
   const h = size + 8;
   parentOf(ctx).appendChild(
-    el("rect", { x, y: top, width: w, height: h, rx: 2, fill: "none", stroke: "currentColor", "stroke-width": intro ? 1.5 : 2 }),
+    el("rect", { x, y: top, width: w, height: h, rx: 2, fill: "none", stroke: "currentColor", "stroke-width": intro ? 1.5 : 2, class: "pp-label-box" }),
   );
   addText(ctx, label, x + w / 2, top + h - 6, { size, anchor: "middle", bold: true, cls: intro ? "pp-label pp-intro-label" : "pp-label" });
   return w;
@@ -83,5 +83,5 @@ export function drawEndingBracket(
     b.close ? `L${b.x2} ${b.y + hook}` : "",
   ].join(" ");
   parentOf(ctx).appendChild(el("path", { d, fill: "none", stroke: "currentColor", "stroke-width": 1.5, class: "pp-ending" }));
-  if (b.label) addText(ctx, b.label, b.x1 + 5, b.y + 14, { size: 14, bold: true });
+  if (b.label) addText(ctx, b.label, b.x1 + 5, b.y + 14, { size: ENDING_LABEL_SIZE, bold: true, cls: "pp-ending-number" });
 }

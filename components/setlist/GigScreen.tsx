@@ -71,7 +71,7 @@ export function GigScreen() {
   const startsAt = shownStart?.id === setlist.id ? shownStart.startsAt : setlist.startsAt;
   const here = `${base}/${encodeURIComponent(setlist.id)}`;
   const openHref = (e: SetlistEntry) =>
-    `/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(e.chartId)}${chartQuery({ instrument: part, key: e.key, tempo: e.tempo, intro: entryIntro(e), list: setlist.id })}`;
+    `/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(e.chartId)}${chartQuery({ instrument: part, key: e.key, tempo: e.tempo, intro: entryIntro(e), tag: e.ending?.kind === "tag" ? e.ending : null, list: setlist.id })}`;
 
   async function duplicate() {
     const id = newId();

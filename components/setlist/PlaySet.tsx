@@ -55,6 +55,7 @@ export function PlaySet() {
             chart: { ...c.body, tempo: e.tempo ?? c.body.tempo },
             key: e.key,
             intro: entryIntro(e),
+            tag: e.ending?.kind === "tag" ? { bars: e.ending.bars, times: e.ending.times } : null,
             label: tuneHeading(e, c.title, c.body.key, c.body.tempo),
             next: nextTitle ? `Next: ${nextTitle}` : undefined,
             nextTitle,
@@ -82,5 +83,14 @@ export function PlaySet() {
     const c = byId.get(e.chartId);
     return c ? [{ id: e.id, chartId: e.chartId, title: c.title, key: e.key }] : [];
   });
-  return <FollowedBandstand bandId={bandId} setlistId={setlistId} entries={gigEntries} tunes={tunes} instrument={instrument} start={Math.min(start, tunes.length - 1)} exitHref={exit} />;
+  return (
+    <FollowedBandstand bandId={bandId} setlistId={setlistId} entries={gigEntries} tunes={tunes} instrument={instrument} start={Math.min(start, tunes.length - 1)} exitHref={exit}
+      onTuneChange={(i) => {
+        // The place in the set lives in the address, so a reload (or a worker-served shell) reopens this tune.
+        const q = new URLSearchParams(window.location.search);
+        q.set("tune", String(i + 1));
+        window.history.replaceState(window.history.state, "", `${window.location.pathname}?${q.toString()}`);
+      }}
+    />
+  );
 }

@@ -88,7 +88,7 @@ function PartsJob({ entries, charts, instrument }: { entries: SetlistEntry[]; ch
         const c = charts.get(e.chartId);
         if (!c) return [];
         try {
-          return [{ id: e.id, title: c.title, ...buildPerformance({ chart: c.body, instrument, key: e.key, intro: entryIntro(e) }) }];
+          return [{ id: e.id, title: c.title, ...buildPerformance({ chart: c.body, instrument, key: e.key, intro: entryIntro(e), tag: e.ending?.kind === "tag" ? e.ending : null }) }];
         } catch {
           return [];
         }

@@ -4,7 +4,7 @@
 import Link from "next/link";
 import { usePathname, useRouter } from "next/navigation";
 import { useEffect, type ReactNode } from "react";
-import { AppHeader } from "@/components/AppHeader";
+import { AppHeader, SkipLink, isStagePath } from "@/components/AppHeader";
 import { useEngineState, useLocalSession, useOnline } from "@/lib/offline/hooks";
 import { getSyncEngine } from "@/lib/offline/sync";
 import { startSyncTriggers } from "@/lib/offline/triggers";
@@ -44,13 +44,16 @@ function Gate({ children }: { children: ReactNode }) {
 }
 
 export function BandShell({ children }: { children: ReactNode }) {
-  const pathname = usePathname();
-  const onStage = typeof window !== "undefined" ? window.location.pathname.includes("/bandstand") : pathname.includes("/bandstand");
+  // The router's path, not the address bar: after a client navigation (Close on the bandstand) the
+  // new page renders before the address bar changes, and a served shell's path still names its route.
+  const onStage = isStagePath(usePathname());
 
   useEffect(() => startSyncTriggers(getSyncEngine()), []);
 
   return (
     <>
+      {/* First in the tab order, before the update prompt and the sync status. */}
+      {onStage ? null : <SkipLink />}
       <UpdatePrompt />
       {onStage ? null : (
         <div className="no-print flex items-center justify-end gap-2 bg-ink px-2 text-paper sm:px-4" data-testid="sync-bar">

@@ -41,22 +41,28 @@ export function resolvedFormBars(chart: Chart): Bar[] {
 export function lastPassBars(chart: Chart): Bar[] {
   const out: Bar[] = [];
   for (const s of chart.sections) {
-    const maxEnding = new Map<number, number>();
-    // Endings belong to the repeat they follow; the highest number in each group is the last pass.
-    let group = 0;
-    const groups: number[] = [];
+    const keep = lastPassMask(s.bars);
     s.bars.forEach((b, i) => {
-      const prev = s.bars[i - 1];
-      if (b.ending === null && prev && prev.ending !== null) group++;
-      groups.push(group);
-      if (b.ending !== null) maxEnding.set(group, Math.max(maxEnding.get(group) ?? 0, b.ending));
-    });
-    s.bars.forEach((b, i) => {
-      if (b.ending !== null && b.ending !== maxEnding.get(groups[i]!)) return;
+      if (!keep[i]) return;
       out.push(b.simile && out.length ? { ...b, chords: out[out.length - 1]!.chords } : b);
     });
   }
   return out;
+}
+
+/** For each bar of a section: is it played the last time through (not an earlier ending)? */
+export function lastPassMask(bars: readonly Bar[]): boolean[] {
+  const maxEnding = new Map<number, number>();
+  // Endings belong to the repeat they follow; the highest number in each group is the last pass.
+  let group = 0;
+  const groups: number[] = [];
+  bars.forEach((b, i) => {
+    const prev = bars[i - 1];
+    if (b.ending === null && prev && prev.ending !== null) group++;
+    groups.push(group);
+    if (b.ending !== null) maxEnding.set(group, Math.max(maxEnding.get(group) ?? 0, b.ending));
+  });
+  return bars.map((b, i) => b.ending === null || b.ending === maxEnding.get(groups[i]!));
 }
 
 /** The first chord of the form that is not N.C. */
@@ -109,4 +115,61 @@ export function analyzeTop(chart: Chart): TopAnalysis {
     ? `${lead}, the ${a.numeral} of ${chart.key}: the tune starts on its tonic.`
     : `${lead}, the ${a.numeral} of ${chart.key} (${FUNCTION_WORDS[fn]}): the tune starts away from the tonic.`;
   return { symbol: full, numeral: a.numeral, function: fn, startsOnTonic, barOneIsNoChord, description };
+}
+
+/** A run of bars longer than any real chart: stops a malformed repeat from looping forever. */
+const MAX_PLAYED = 4096;
+
+/**
+ * The bars in the order the band plays them: repeats taken (`:|x3` three times through), each
+ * ending played on its own pass, bars outside an ending every time. A `:|` with no `|:` goes back to
+ * the start, or to just after the last repeat that was finished. `%` bars stay as they are.
+ */
+export function barsAsPlayed(bars: readonly Bar[]): Bar[] {
+  const out: Bar[] = [];
+  let start = 0;
+  let pass = 1;
+  let jumped = false;
+  let i = 0;
+  while (i < bars.length && out.length < MAX_PLAYED) {
+    const b = bars[i]!;
+    if (!jumped) {
+      // A new repeat, or plain bars again after the last ending: the passes count from one.
+      const afterEndings = b.ending === null && i > 0 && bars[i - 1]!.ending !== null;
+      if (b.repeatStart || afterEndings) {
+        start = i;
+        pass = 1;
+      }
+    }
+    jumped = false;
+    if (b.ending !== null && b.ending !== pass) {
+      i++;
+      continue;
+    }
+    out.push(b);
+    if (b.repeatEnd) {
+      if (pass < (b.repeatTimes ?? 2)) {
+        pass++;
+        i = start;
+        jumped = true;
+        continue;
+      }
+      if (b.ending === null) {
+        start = i + 1;
+        pass = 1;
+      }
+    }
+    i++;
+  }
+  return out;
+}
+
+/** The form's bars as played (see `barsAsPlayed`): what "an N-bar form" and a duration count. */
+export function formAsPlayed(chart: Chart): Bar[] {
+  return barsAsPlayed(chart.sections.flatMap((s) => s.bars));
+}
+
+/** Seconds that `bars` take at `tempo` beats a minute in `meter`; null without a tempo. */
+export function secondsFor(bars: number, meter: Meter, tempo: number | null): number | null {
+  return tempo ? Math.round((bars * meter.beats * 60) / tempo) : null;
 }

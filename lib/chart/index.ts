@@ -4,6 +4,7 @@ export { parseChartText, assertChartTextSize, METADATA_FIELDS, MAX_CHART_TEXT_CH
 export { ChartTextError } from "./text-error";
 export { serializeChart, BARS_PER_LINE } from "./text-serialize";
 export { readMelodyNote, formatMelodyNote, noteQuarters, barQuarters } from "./melody";
-export { analyzeTop, firstChord, lastPassBars, type TopAnalysis } from "./form";
+export { analyzeTop, barsAsPlayed, firstChord, formAsPlayed, lastPassBars, secondsFor, type TopAnalysis } from "./form";
 export { generateIntro, suggestIntros, type IntroOptions } from "./intro";
+export { CONCERT_READER, prettyMusic, type IntroReader } from "./intro-reader";
 export { arrange, performanceBars, transposeChart } from "./perform";

@@ -1,11 +1,14 @@
 // Intros: the seven kinds a band starts a tune with, each with a plain explanation and a fit analysis.
 import {
   ChordSymbolError, chordPitchClasses, dominantOf, formatChord, isDominantChord, isMinorChord, keyScale, parseChord, parseKey,
-  qualityOf, tritoneSubstitute, turnaround, twoFiveInto, type ChordTones,
+  progressionNumerals, qualityOf, tritoneSubstitute, turnaround, twoFiveInto, type ChordTones,
 } from "@/lib/music";
 import { Note } from "tonal";
 import { INTRO_KINDS, type Bar, type Chart, type IntroChoice, type IntroKind, type IntroResult, type Meter } from "./model";
-import { analyzeTop, barOf, blankBar, firstChord, lastPassBars, plainCopy, type TopAnalysis } from "./form";
+import { analyzeTop, barOf, barsAsPlayed, blankBar, firstChord, formAsPlayed, lastPassBars, plainCopy, secondsFor, type TopAnalysis } from "./form";
+import { CONCERT_READER, type IntroReader } from "./intro-reader";
+
+export { CONCERT_READER, type IntroReader } from "./intro-reader";
 
 export interface IntroOptions {
   kind: IntroKind;
@@ -14,6 +17,8 @@ export interface IntroOptions {
   tritoneSub?: boolean;
   vamp?: readonly [string, string] | [string, string];
   variant?: IntroChoice["variant"];
+  /** How the advice names chords, notes and keys: the reader's part (default concert, ♭/♯ spelled). */
+  read?: IntroReader;
 }
 
 /** Kinds that suit this tune, best first, leaving out `except`. */
@@ -122,6 +127,7 @@ const clamp = (n: number | undefined, lo: number, hi: number) => (n === undefine
 export function generateIntro(chart: Chart, options: IntroOptions): IntroResult {
   const opts: IntroOptions = { ...options, bars: clamp(options.bars, 1, 64), repeats: clamp(options.repeats, 1, 16) };
   const { kind } = opts;
+  const r = opts.read ?? CONCERT_READER;
   const meter = chart.meter;
   const top = analyzeTop(chart);
   const target = firstChord(chart);
@@ -136,11 +142,10 @@ export function generateIntro(chart: Chart, options: IntroOptions): IntroResult 
   });
   const choice = chosen(opts.bars, opts.repeats ?? 1);
   const others = fitting(top, chart, kind);
-  if (!target && kind !== "composed" && kind !== "solo-chorus") {
-    return result(kind, [], false, "The form has no chords to lead into, so this intro can't be built.", chart.intro ? ["composed"] : ["solo-chorus"], { choice });
-  }
-  const tgt = target!;
-  const topName = top.symbol ?? "the top";
+  if (!target) return withoutChords(chart, kind, choice, opts.repeats ?? 1);
+  const tgt = target;
+  const topName = top.symbol ? r.chord(top.symbol) : "the top";
+  const chords = (list: readonly string[], sep = " ") => list.map(r.chord).join(sep);
   switch (kind) {
     case "dominant-pedal": {
       const n = opts.bars ?? 4;
@@ -149,8 +154,9 @@ export function generateIntro(chart: Chart, options: IntroOptions): IntroResult 
       const resolveTo = sub(v, tritone);
       const last = meter.beats >= 2 ? [barOf([pedal, resolveTo], meter)] : [barOf([pedal], meter), barOf([resolveTo], meter)];
       const bars = [...Array.from({ length: n - 1 }, () => barOf([pedal], meter)), ...last];
-      const advice = `A pedal on ${v.replace(/7$/, "")}: ${pedal} for ${n} bar${n > 1 ? "s" : ""}, opening to ${resolveTo} at the end and resolving to ${topName} at the top.`;
-      return result(kind, withRepeats(bars, opts.repeats ?? 1), true, advice, others, { choice: chosen(n, opts.repeats ?? 1) });
+      const pedalNote = v.replace(/7$/, "");
+      const advice = `A pedal on ${r.note(pedalNote)}: ${r.chord(pedal)} for ${n} bar${n > 1 ? "s" : ""}, opening to ${r.chord(resolveTo)} at the end and resolving to ${topName} at the top.`;
+      return result(kind, withRepeats(bars, opts.repeats ?? 1), true, advice, others, { choice: chosen(n, opts.repeats ?? 1), pedal: pedalNote });
     }
     case "last-bars": {
       const n = opts.bars ?? 8;
@@ -159,80 +165,115 @@ export function generateIntro(chart: Chart, options: IntroOptions): IntroResult 
       const taken = pass.slice(-n).map((b, i, arr) => plainCopy(b, arr[i - 1]));
       const { bars, turned } = turnBack(taken, tgt, meter, tritone);
       const advice = fits
-        ? `The last ${n} bars of the form${turned ? `, with the last bar turned into ${turned} to lead back to ${topName}` : ", whose last bar already leads back to the top"}.`
-        : `The form is only ${pass.length} bars, shorter than ${n}: this plays all of it. Take ${Math.min(4, pass.length)} bars or a solo chorus instead.`;
+        ? `The last ${n} bars of the form${turned ? `, with the last bar turned into ${chords(turned.split(" "))} to lead back to ${topName}` : ", whose last bar already leads back to the top"}.`
+        : `The last time through, the form is only ${pass.length} bars, shorter than ${n}: this plays all of it. Take ${Math.min(4, pass.length)} bars or a solo chorus instead.`;
       return result(kind, withRepeats(bars, opts.repeats ?? 1), fits, advice, ["solo-chorus", ...others.filter((k) => k !== "solo-chorus")], { choice: chosen(n, opts.repeats ?? 1) });
     }
-    case "vamp": {
-      const given = opts.vamp ? ([...opts.vamp] as [string, string]) : null;
-      const better = suggestedVamp(tgt, chart);
-      let pair: [string, string];
-      try {
-        pair = (given ?? better).map((s) => formatChord(parseChord(s))) as [string, string];
-      } catch (e) {
-        // An unreadable chord is never guessed at: no bars, and the reason in the advice.
-        if (!(e instanceof ChordSymbolError)) throw e;
-        return result(kind, [], false, `${e.message}. Try ${better.join(" | ")}.`, others, { choice: chosen(opts.bars ?? 2, opts.repeats ?? 2, { vamp: better }) });
-      }
-      const played = pair.map((s) => (tritone && dominantInto(s, tgt) ? tritoneSubstitute(s) : s));
-      const n = opts.bars ?? 2;
-      const cells = Array.from({ length: Math.max(n, 2) }, (_, i) => played[i % 2]!);
-      const bars = n === 1 && meter.beats >= 2 ? [barOf(played, meter)] : cells.map((c) => barOf([c], meter));
-      // A dominant of bar 1 may bring outside notes (its tensions); any other chord with two or more
-      // notes foreign to the key and to bar 1 pulls the band toward another key.
-      const clashes = played
-        .filter((s) => !dominantInto(s, tgt))
-        .map((s) => ({ s, foreign: foreignNotes(s, chart, tgt) }))
-        .filter((x) => x.foreign.length >= 2);
-      const fits = clashes.length === 0;
-      const alternative = better.join(" | ") === pair.join(" | ") ? "" : `${better.join(" | ")} or `;
-      const advice = fits
-        ? `A two-chord vamp, ${played.join(" | ")}, ${opts.repeats && opts.repeats > 2 ? `${opts.repeats} times` : "until the cue"}, then ${topName} at the top.`
-        : `The vamp ${played.join(" | ")} clashes with ${topName} in bar 1: ${clashes.map((c) => `${c.s} brings ${c.foreign.join(", ")}`).join("; ")}, notes foreign to ${chart.key} and to bar 1. Try ${alternative}a ii–V into bar 1.`;
-      return result(kind, withRepeats(bars, opts.repeats ?? 2), fits, advice, others, { choice: chosen(n, opts.repeats ?? 2, { vamp: pair }), vamp: pair });
-    }
+    case "vamp":
+      return vampIntro(chart, opts, tgt, topName, others, r);
     case "solo-chorus": {
       const choruses = opts.repeats ?? 1;
       const form = chart.sections.flatMap((s) => s.bars.map((b) => stripMelody({ ...b, chords: b.chords.map((c) => ({ ...c })) })));
       const labels: (string | null)[] = [];
       chart.sections.forEach((s) => s.bars.forEach((_, i) => labels.push(i === 0 ? s.label : null)));
-      const { bars } = target ? turnBack(form, tgt, meter, tritone) : { bars: form };
+      const { bars } = turnBack(form, tgt, meter, tritone);
       const all = Array.from({ length: choruses }, () => bars).flat();
-      const seconds = chart.tempo ? Math.round((all.length * chart.meter.beats * 60) / chart.tempo) : null;
+      // Lengths count bars as played: repeats taken, each ending on its own pass.
+      const played = formAsPlayed(chart).length;
+      const seconds = secondsFor(barsAsPlayed(all).length, meter, chart.tempo);
       const length = seconds ? ` (about ${seconds} seconds at ${chart.tempo})` : "";
-      const advice = `A solo chorus: ${choruses > 1 ? `${choruses} times` : "once"} through the ${form.length}-bar form over the changes before the head comes in${length}${chart.intro ? "; this tune also has a composed intro" : ""}.`;
-      return result(kind, all, target !== null, target ? advice : "The form has no chords to solo over.", others, {
+      const advice = `A solo chorus: ${choruses > 1 ? `${choruses} times` : "once"} through the ${played}-bar form (as played, repeats taken) over the changes before the head comes in${length}${chart.intro ? "; this tune also has a composed intro" : ""}.`;
+      return result(kind, all, true, advice, others, {
         choice: chosen(undefined, choruses),
         labels: Array.from({ length: choruses }, () => labels).flat(),
       });
     }
     case "turnaround": {
       const variant = opts.variant ?? "I-vi-ii-V";
-      const chords = turnaround(chart.key, variant, tritone, top.startsOnTonic && isDominantChord(tgt));
+      const progression = turnaround(chart.key, variant, tritone, top.startsOnTonic && isDominantChord(tgt));
+      const name = progressionNumerals(progression, chart.key);
       const n = opts.bars ?? (meter.beats % 2 === 0 ? 2 : 4);
-      const bars = spread(chords, n, meter);
+      const bars = spread(progression, n, meter);
       const advice = top.startsOnTonic
-        ? `A ${variant.replace(/-/g, "–")} turnaround, ${chords.join(" ")}, leading to ${topName} at the top.`
-        : `A ${variant.replace(/-/g, "–")} turnaround lands on ${parseKey(chart.key).tonic}, but this tune starts on ${topName} (${top.numeral}), not the tonic. A ii–V into ${topName} or a dominant pedal fits better.`;
-      return result(kind, withRepeats(bars, opts.repeats ?? 2), top.startsOnTonic, advice, others, { choice: chosen(n, opts.repeats ?? 2, { variant }) });
+        ? `A ${name} turnaround, ${chords(progression)}, leading to ${topName} at the top.`
+        : `A ${name} turnaround lands on ${r.note(parseKey(chart.key).tonic)}, but this tune starts on ${topName} (${prettyNumeral(top.numeral)}), not the tonic. A ii–V into ${topName} or a dominant pedal fits better.`;
+      // Played once unless asked: then no repeat signs are drawn (the picker's "Times through" reads 1).
+      return result(kind, withRepeats(bars, opts.repeats ?? 1), top.startsOnTonic, advice, others, { choice: chosen(n, opts.repeats ?? 1, { variant }), name });
     }
     case "two-five": {
       const pair = twoFiveInto(formatChord({ ...tgt, bass: null }), tritone);
       const n = opts.bars ?? 2;
       const bars = spread(pair, n, meter);
-      const advice = `${isMinorChord(tgt) ? "A minor iiø–V" : "A ii–V"} into ${topName}: ${pair.join(" | ")}.`;
+      const advice = `${isMinorChord(tgt) ? "A minor iiø–V" : "A ii–V"} into ${topName}: ${chords(pair, " | ")}.`;
       return result(kind, withRepeats(bars, opts.repeats ?? 1), true, advice, others, { choice: chosen(n, opts.repeats ?? 1) });
     }
     case "composed": {
       if (!chart.intro) {
-        const advice = `This chart has no composed intro (an "Intro:" section in the chart text). ${top.startsOnTonic ? "It starts on the tonic, so a turnaround or a dominant pedal works." : `It starts on ${topName} (${top.numeral}), so a ii–V into bar 1 or a dominant pedal works.`}`;
+        const advice = `This chart has no composed intro (an "Intro:" section in the chart text). ${top.startsOnTonic ? "It starts on the tonic, so a turnaround or a dominant pedal works." : `It starts on ${topName} (${prettyNumeral(top.numeral)}), so a ii–V into bar 1 or a dominant pedal works.`}`;
         return result(kind, [], false, advice, others.filter((k) => k !== "composed"), { choice });
       }
-      const bars = chart.intro.bars.map((b) => ({ ...b, chords: b.chords.map((c) => ({ ...c })) }));
-      const advice = `The tune's own ${bars.length}-bar intro, as written${tritone ? " (tritone substitution is not applied to a composed intro)" : ""}.`;
-      return result(kind, withRepeats(bars, opts.repeats ?? 1), true, advice, others, { choice });
+      return composedIntro(chart, opts, tritone, others, choice);
     }
   }
+}
+
+const prettyNumeral = (n: string) => n.replace(/^b/, "♭").replace(/^#/, "♯");
+
+function composedIntro(chart: Chart, opts: IntroOptions, tritone: boolean, others: IntroKind[], choice: IntroChoice): IntroResult {
+  const bars = chart.intro!.bars.map((b) => ({ ...b, chords: b.chords.map((c) => ({ ...c })) }));
+  const played = barsAsPlayed(bars).length;
+  const advice = `The tune's own ${played}-bar intro, as written${tritone ? " (tritone substitution is not applied to a composed intro)" : ""}.`;
+  return result("composed", withRepeats(bars, opts.repeats ?? 1), true, advice, others, { choice });
+}
+
+/** A chart with no chords yet: nothing can lead into bar 1, and no kind is offered instead. */
+function withoutChords(chart: Chart, kind: IntroKind, choice: IntroChoice, repeats: number): IntroResult {
+  if (kind === "composed" && chart.intro) return composedIntro(chart, { kind, repeats }, false, [], choice);
+  const advice =
+    kind === "composed"
+      ? `This chart has no composed intro, and its form has no chords yet, so no intro can be worked out. Add the chords first.`
+      : `The form has no chords yet, so there is nothing for this intro to lead into. Add the chords first.`;
+  return result(kind, [], false, advice, [], { choice });
+}
+
+function vampIntro(chart: Chart, opts: IntroOptions, tgt: ChordTones, topName: string, others: IntroKind[], r: IntroReader): IntroResult {
+  const meter = chart.meter;
+  const tritone = opts.tritoneSub ?? false;
+  const base: IntroChoice = { kind: "vamp", ...(tritone ? { tritoneSub: true } : {}) };
+  const chosen = (bars: number, repeats: number, extra: Partial<IntroChoice>): IntroChoice => ({ ...base, bars, repeats, ...extra });
+  const given = opts.vamp ? ([...opts.vamp] as [string, string]) : null;
+  const better = suggestedVamp(tgt, chart);
+  let pair: [string, string];
+  try {
+    pair = (given ?? better).map((s) => formatChord(parseChord(s))) as [string, string];
+  } catch (e) {
+    // An unreadable chord is never guessed at: no bars, and the reason in the advice.
+    if (!(e instanceof ChordSymbolError)) throw e;
+    return result("vamp", [], false, `${e.message}. Try ${better.map(r.chord).join(" | ")}.`, others, { choice: chosen(opts.bars ?? 2, opts.repeats ?? 2, { vamp: better }) });
+  }
+  const played = pair.map((s) => (tritone && dominantInto(s, tgt) ? tritoneSubstitute(s) : s));
+  const n = opts.bars ?? 2;
+  const cells = Array.from({ length: Math.max(n, 2) }, (_, i) => played[i % 2]!);
+  const bars = n === 1 && meter.beats >= 2 ? [barOf(played, meter)] : cells.map((c) => barOf([c], meter));
+  // A dominant of bar 1 may bring outside notes (its tensions); any other chord with two or more
+  // notes foreign to the key and to bar 1 pulls the band toward another key.
+  const clashes = played
+    .filter((s) => !dominantInto(s, tgt))
+    .map((s) => ({ s, foreign: foreignNotes(s, chart, tgt) }))
+    .filter((x) => x.foreign.length >= 2);
+  const fits = clashes.length === 0;
+  const alternative = better.join(" | ") === pair.join(" | ") ? "" : `${better.map(r.chord).join(" | ")} or `;
+  // A vamp with no count asked for goes round until the leader cues the top.
+  const counted = opts.repeats !== undefined && opts.repeats > 2;
+  const shown = played.map(r.chord).join(" | ");
+  const advice = fits
+    ? `A two-chord vamp, ${shown}, ${counted ? `${opts.repeats} times` : "until the cue"}, then ${topName} at the top.`
+    : `The vamp ${shown} clashes with ${topName} in bar 1: ${clashes.map((c) => `${r.chord(c.s)} brings ${c.foreign.map(r.note).join(", ")}`).join("; ")}, notes foreign to ${r.key(chart.key)} and to bar 1. Try ${alternative}a ii–V into bar 1.`;
+  return result("vamp", withRepeats(bars, opts.repeats ?? 2), fits, advice, others, {
+    choice: chosen(n, opts.repeats ?? 2, { vamp: pair }),
+    vamp: pair,
+    ...(counted ? {} : { cue: "till cue" as const }),
+  });
 }
 
 function stripMelody(b: Bar): Bar {
@@ -242,6 +283,6 @@ function stripMelody(b: Bar): Bar {
 }
 
 /** Every kind of intro for this tune with default options and its fit, for an intro picker. */
-export function suggestIntros(chart: Chart): IntroResult[] {
-  return INTRO_KINDS.map((kind) => generateIntro(chart, { kind }));
+export function suggestIntros(chart: Chart, read?: IntroReader): IntroResult[] {
+  return INTRO_KINDS.map((kind) => generateIntro(chart, { kind, ...(read ? { read } : {}) }));
 }

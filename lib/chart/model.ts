@@ -106,6 +106,12 @@ export interface IntroResult {
   labels?: (string | null)[];
   /** For `vamp`: the two chords used, concert pitch. */
   vamp?: [string, string];
+  /** For `dominant-pedal`: the pedal note the bass holds, concert pitch class ("Bb"). */
+  pedal?: string;
+  /** For `vamp` with no count: the marking over its repeat ("till cue"). */
+  cue?: "till cue";
+  /** For `turnaround`: the progression's numerals in the chart's key ("i–viø–iiø–V"). */
+  name?: string;
 }
 
 export type Barline = "single" | "double" | "final";
@@ -113,7 +119,8 @@ export type Barline = "single" | "double" | "final";
 /** One bar as a player reads it: transposed, with its labels and barline marks. */
 export interface PerformanceBar {
   index: number;
-  part: "intro" | "form";
+  /** `tag`: the last bars played again after the form (a set list's tag ending). */
+  part: "intro" | "form" | "tag";
   /** Label to show when a section starts on this bar ("Intro", "A", "B"), else null. */
   section: string | null;
   chords: ChordSlot[];
@@ -125,6 +132,8 @@ export interface PerformanceBar {
   /** The barline closing this bar: double at a section's end, final at the end of the chart. */
   barline: Barline;
   melody?: MelodyNote[];
+  /** A playing direction written under the bar, in the part's key: "C pedal", "till cue". */
+  direction?: string;
   /** A short first bar (pickup): its length in beats of the meter. */
   pickup?: number;
   /** Where this bar sits in the chart (for marks); null for generated intro bars. */
@@ -135,6 +144,13 @@ export interface PerformanceOptions {
   instrument?: string; // instrument id; default "concert"
   key?: string; // concert key to play in (a singer's key); default the chart's key
   intro?: IntroChoice | null;
+  /** A tag ending: the form's last `bars` bars (as played the last time) played `times` more times. */
+  tag?: TagEnding | null;
+}
+
+export interface TagEnding {
+  bars: number;
+  times: number;
 }
 
 export interface Arrangement {

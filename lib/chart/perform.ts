@@ -4,8 +4,10 @@ import {
   formatChord, instrumentOf, moveChord, movePitch, nearestShift, parseChord, parseKey, simplestKey, writtenKeyInfo, writtenPitch,
   type KeyInfo,
 } from "@/lib/music";
-import type { Arrangement, Bar, Barline, Chart, ChordSlot, PerformanceBar, PerformanceOptions, Section } from "./model";
+import type { Arrangement, Bar, Barline, Chart, ChordSlot, IntroResult, PerformanceBar, PerformanceOptions, Section, TagEnding } from "./model";
 import { generateIntro } from "./intro";
+import { lastPassMask } from "./form";
+import { prettyMusic } from "./intro-reader";
 
 /** Chords moved between keys, remembered per symbol (a book repeats the same few hundred chords). */
 function chordMover(from: KeyInfo, to: KeyInfo): (symbol: string) => string {
@@ -71,20 +73,65 @@ export function arrange(chart: Chart, opts: PerformanceOptions = {}): Arrangemen
   };
   if (intro && intro.bars.length > 0) {
     const composed = intro.kind === "composed";
+    const first = bars.length;
     intro.bars.forEach((b, i) => {
       const inner = intro.labels?.[i];
       const label = i === 0 ? "Intro" : inner ? `Intro · ${inner}` : null;
       push(b, "intro", label, i === intro.bars.length - 1 ? "double" : "single", composed ? { section: -1, bar: i % (concert.intro?.bars.length ?? 1) } : null);
     });
+    introDirections(intro, bars.slice(first), move);
   }
+  const tag = opts.tag && opts.tag.bars > 0 && opts.tag.times > 0 ? tagBars(concert, opts.tag) : [];
   concert.sections.forEach((s, si) => {
     s.bars.forEach((b, bi) => {
       const lastOfSection = bi === s.bars.length - 1;
       const lastOfChart = lastOfSection && si === concert.sections.length - 1;
-      push(b, "form", bi === 0 ? s.label : null, lastOfChart ? "final" : lastOfSection ? "double" : "single", { section: si, bar: bi });
+      const end = lastOfChart && !tag.length ? "final" : lastOfSection ? "double" : "single";
+      push(b, "form", bi === 0 ? s.label : null, end, { section: si, bar: bi });
     });
   });
+  tag.forEach((t, i) => push(t.bar, "tag", i === 0 ? `Tag ×${opts.tag!.times}` : null, i === tag.length - 1 ? "final" : "single", t.source));
   return { bars, instrument: instrument.id, concertKey: concert.key, writtenKey: written.name, meter: concert.meter, intro };
+}
+
+/** The pedal note under a dominant pedal and "till cue" on an open vamp, in the part's key. */
+function introDirections(intro: IntroResult, introBars: PerformanceBar[], move: (symbol: string) => string): void {
+  const first = introBars[0];
+  const last = introBars[introBars.length - 1];
+  // Moving the pedal note as a bare triad names it in the part's key and spelling.
+  if (intro.pedal && first) first.direction = `${prettyMusic(move(intro.pedal))} pedal`;
+  if (intro.cue && last) last.direction = intro.cue;
+}
+
+/**
+ * The tag: the last `bars` bars the band plays the last time through (endings and `%` resolved),
+ * inside repeat signs marked with the number of times, or written out once for a single time.
+ */
+function tagBars(chart: Chart, tag: TagEnding): { bar: Bar; source: PerformanceBar["source"] }[] {
+  const played: { bar: Bar; source: { section: number; bar: number } }[] = [];
+  chart.sections.forEach((s, si) => {
+    const keep = lastPassMask(s.bars);
+    s.bars.forEach((b, bi) => keep[bi] && played.push({ bar: b, source: { section: si, bar: bi } }));
+  });
+  const taken = played.slice(-tag.bars);
+  return taken.map((p, i) => {
+    const bar: Bar = { ...p.bar, chords: p.bar.chords.map((c) => ({ ...c })), repeatStart: false, repeatEnd: false, ending: null };
+    delete bar.repeatTimes;
+    // A `%` at the tag's first bar has nothing before it on the line: write its chords out.
+    if (bar.simile && i === 0) {
+      const before = played[played.length - tag.bars - 1];
+      bar.simile = false;
+      bar.chords = before ? before.bar.chords.map((c) => ({ ...c })) : [];
+    }
+    if (tag.times > 1) {
+      if (i === 0) bar.repeatStart = true;
+      if (i === taken.length - 1) {
+        bar.repeatEnd = true;
+        bar.repeatTimes = tag.times;
+      }
+    }
+    return { bar, source: p.source };
+  });
 }
 
 /** The bars to read: see `arrange`. `intro: undefined` plays the chart's composed intro if it has one; `null` none. */

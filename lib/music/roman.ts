@@ -81,3 +81,22 @@ export function harmonicFunction(chord: Chord, key: string | KeyInfo): HarmonicF
   if (q.dominant) return "secondary-dominant";
   return "chromatic";
 }
+
+/**
+ * The numerals a progression is named by in its key, without the chords' sevenths: the minor
+ * turnaround Dm7 Bm7♭5 Em7♭5 A7(♭9) in D minor is "i–viø–iiø–V", the major one "I–vi–ii–V".
+ */
+export function progressionNumerals(symbols: readonly string[], key: string | KeyInfo): string {
+  return symbols
+    .map((s) => {
+      const chord = parseChord(s);
+      const a = analyseChord(chord, key);
+      if (!a || chord.kind !== "chord") return "N.C.";
+      const base = NUMERALS[a.degree - 1]!;
+      const fam = qualityOf(chord).family;
+      const mark = fam === "half-diminished" ? "ø" : fam === "diminished" ? "°" : "";
+      const acc = a.accidental.replace(/b/g, "♭").replace(/#/g, "♯");
+      return acc + (a.upper ? base : base.toLowerCase()) + mark;
+    })
+    .join("–");
+}

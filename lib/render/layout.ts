@@ -4,7 +4,7 @@ import type { Arrangement, PerformanceBar } from "@/lib/chart/model";
 import type { ChartLayout, Clef, LayoutOptions, Page, PlacedBar, System } from "./types";
 import { minBarWidth, placeChords } from "./bars";
 import { keyAccidentalCount } from "./keys";
-import { BAR_PAD_END, BAR_PAD_START, MARGIN, STAFF_HEIGHT, labelBoxWidth, openingWidth } from "./metrics";
+import { BAR_PAD_END, BAR_PAD_START, MARGIN, STAFF_HEIGHT, endingLabelRoom, labelBoxWidth, openingWidth } from "./metrics";
 import { clefFor } from "./part-label";
 
 interface Spacing {
@@ -18,10 +18,16 @@ interface Spacing {
   chordRow: number;
   /** Most spare room added between systems, as a share of a system's slot. */
   spread: number;
+  /** Top of the rehearsal-label box below the system's top. */
+  labelDrop: number;
 }
 
-const ROOMY: Spacing = { topStrip: 24, header: 72, bottom: 10, labelRow: 24, belowStaff: 18, chordRow: 1.35, spread: 0.25 };
-const COMPACT: Spacing = { topStrip: 20, header: 46, bottom: 6, labelRow: 18, belowStaff: 8, chordRow: 1.2, spread: 0.1 };
+// The treble clef's tail reaches about 1.6 staff spaces under the staff. Roomy rows leave room for it
+// (and a direction or ×N) under each staff; compact rows keep their height and instead set the label
+// box level with the chord symbols (`labelDrop`), below the tail. Ending brackets start after a
+// line's clef and key, so neither touches the system above.
+const ROOMY: Spacing = { topStrip: 24, header: 72, bottom: 10, labelRow: 24, belowStaff: 24, chordRow: 1.35, spread: 0.25, labelDrop: 2 };
+const COMPACT: Spacing = { topStrip: 20, header: 46, bottom: 6, labelRow: 18, belowStaff: 8, chordRow: 1.2, spread: 0.1, labelDrop: 11 };
 
 export function defaultZoom(width: number): number {
   return width >= 1000 ? 1.3 : width >= 700 ? 1.15 : 1;
@@ -91,11 +97,14 @@ function placeLine(line: Line, lineIndex: number, ctx: LineContext): PlacedBar[]
     const width = (widths[i] ?? nominal) + (first ? opening : 0);
     const noteX = x + (first ? opening : 0) + BAR_PAD_START;
     const label = bar.section ?? (bar.index === ctx.firstIntroIndex ? "Intro" : null);
-    const chordX = ctx.compact && label ? Math.max(noteX, x + labelBoxWidth(label) + 6) : noteX;
-    const chordWidth = Math.max(1, x + width - BAR_PAD_END - chordX);
-    const { boxes } = placeChords(bar, ctx.beats, ctx.fontSize, chordX, chordWidth);
     const prev = line.bars[i - 1];
     const next = line.bars[i + 1];
+    const endingStart = bar.ending !== null && (!prev || prev.ending !== bar.ending);
+    let chordX = ctx.compact && label ? Math.max(noteX, x + labelBoxWidth(label) + 6) : noteX;
+    // The ending number sits at the bracket's start (after a label box); the first symbol starts past it.
+    if (endingStart && bar.ending !== null) chordX = Math.max(chordX, endingX(x, first ? opening : 0, label) + endingLabelRoom(bar.ending));
+    const chordWidth = Math.max(1, x + width - BAR_PAD_END - chordX);
+    const { boxes } = placeChords(bar, ctx.beats, ctx.fontSize, chordX, chordWidth);
     const placed: PlacedBar = {
       bar,
       x,
@@ -107,12 +116,18 @@ function placeLine(line: Line, lineIndex: number, ctx: LineContext): PlacedBar[]
       label,
       intro: bar.part === "intro",
       chords: boxes,
-      endingStart: bar.ending !== null && (!prev || prev.ending !== bar.ending),
+      endingStart,
+      endingX: endingX(x, first ? opening : 0, label),
       endingEnd: bar.ending !== null && (!next || next.ending !== bar.ending),
     };
     x += width;
     return placed;
   });
+}
+
+/** Where a bar's ending bracket starts: after its label box, else after a line's clef and key. */
+function endingX(x: number, opening: number, label: string | null): number {
+  return label ? x + labelBoxWidth(label) + 8 : x + opening;
 }
 
 export function systemHeight(fontSize: number, compact = false): number {
@@ -171,12 +186,12 @@ function paginate(lines: PlacedBar[][], g: PageGeometry): Page[] {
     const systems: System[] = lines.slice(next, next + rows).map((bars, i) => {
       const y = top + i * pitch;
       const staffY = y + staffOffset;
-      return { index: next + i, y, staffY, height: slot, bars };
+      return { index: next + i, y, staffY, labelY: y + sp.labelDrop, height: slot, bars };
     });
     next += rows;
-    const halfIndex = Math.ceil(systems.length / 2);
-    const halfY = systems[halfIndex]?.y ?? g.height;
-    pages.push({ number: pages.length + 1, width: g.width, height: g.height, zoom: g.zoom, systems, header, halfIndex, halfY });
+    const earlyTurnIndex = Math.ceil(systems.length / 2);
+    const earlyTurnY = systems[earlyTurnIndex]?.y ?? g.height;
+    pages.push({ number: pages.length + 1, width: g.width, height: g.height, zoom: g.zoom, systems, header, earlyTurnIndex, earlyTurnY });
   } while (next < lines.length);
   return pages;
 }

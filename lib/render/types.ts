@@ -55,6 +55,8 @@ export interface PlacedBar {
   chords: ChordBox[];
   /** This bar opens / closes an ending bracket (1st, 2nd…) on this line. */
   endingStart: boolean;
+  /** Where an ending bracket opening on this bar starts (after a label box, or a line's clef and key). */
+  endingX: number;
   endingEnd: boolean;
 }
 
@@ -63,6 +65,8 @@ export interface System {
   /** Top of the system's slot; the staff's top line is at `staffY`. */
   y: number;
   staffY: number;
+  /** Top of the rehearsal-label box. */
+  labelY: number;
   height: number;
   bars: PlacedBar[];
 }
@@ -82,9 +86,9 @@ export interface Page {
   zoom: number;
   systems: System[];
   header: PageHeader | null;
-  /** Systems before this index form the top half (for half-page turns); `halfY` is where the bottom half begins. */
-  halfIndex: number;
-  halfY: number;
+  /** Systems before this index are what an early turn keeps of the page; `earlyTurnY` is where the next page's systems rise in. */
+  earlyTurnIndex: number;
+  earlyTurnY: number;
 }
 
 export interface ChartLayout {

@@ -76,16 +76,16 @@ test.describe("bandstand view", () => {
     await expect(shown(page)).toHaveAttribute("data-page", String(pages - 1));
   });
 
-  test("half turns show the next page's top before the full turn", async ({ page }) => {
+  test("the early turn raises the next page's first systems under a brass rule before the full turn", async ({ page }) => {
     await openBandstand(page);
-    await page.getByTestId("half-turns").click();
+    await page.getByTestId("early-turn").click();
     await page.keyboard.press("PageDown");
-    await expect(shown(page)).toHaveAttribute("data-view", "half");
-    await expect(shown(page).locator(".pp-half.pp-shown svg")).toHaveCount(2);
+    await expect(shown(page)).toHaveAttribute("data-view", "early");
+    await expect(shown(page).locator(".pp-early.pp-shown svg")).toHaveCount(2);
     await page.keyboard.press("PageDown");
     await expect(shown(page)).toHaveAttribute("data-view", "full");
     await expect(shown(page)).toHaveAttribute("data-page", "2");
-    await page.getByTestId("half-turns").click();
+    await page.getByTestId("early-turn").click();
   });
 
   test("a key remapped in settings turns the page", async ({ page }) => {

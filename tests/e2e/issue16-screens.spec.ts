@@ -67,7 +67,7 @@ test.describe("issue 16 review screenshots", () => {
     // Item 26: the early turn between pages 1 and 2 in the bandstand view.
     await page.goto(`/bands/${DEMO_BAND_ID}/charts/${chartId("lanternfish")}/bandstand`);
     await drawn(page);
-    const toggle = page.locator('[data-testid="half-turns"], [data-testid="early-turn"]').first();
+    const toggle = page.locator('[data-testid="early-turn"], [data-testid="early-turn"]').first();
     await toggle.click();
     await page.keyboard.press("PageDown");
     await page.waitForTimeout(700);

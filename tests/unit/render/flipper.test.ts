@@ -19,7 +19,7 @@ describe("PageFlipper", () => {
   it("shows exactly one sheet and stops at both ends", () => {
     const root = sheets(3);
     const live = document.createElement("p");
-    const f = new PageFlipper(root, 3, { halfFractions: [0.5, 0.5, 0.5] }, live, false);
+    const f = new PageFlipper(root, 3, { earlyTurnFractions: [0.5, 0.5, 0.5] }, live, false);
     expect(shownSheets(root)).toEqual(["1"]);
     expect(f.go(-1)).toBe(false);
     expect(f.go(1)).toBe(true);
@@ -30,23 +30,23 @@ describe("PageFlipper", () => {
     expect(live.textContent).toBe("Page 3 of 3");
   });
 
-  it("passes through a half view that shows copies of both pages", () => {
+  it("passes through an early-turn view that shows copies of both pages", () => {
     const root = sheets(2);
-    const f = new PageFlipper(root, 2, { halfFractions: [0.5, 0.4] }, null, true);
+    const f = new PageFlipper(root, 2, { earlyTurnFractions: [0.5, 0.4] }, null, true);
     f.go(1);
-    expect(root.dataset.view).toBe("half");
+    expect(root.dataset.view).toBe("early");
     expect(shownSheets(root)).toEqual([]);
-    expect(root.querySelectorAll(".pp-half.pp-shown svg")).toHaveLength(2);
+    expect(root.querySelectorAll(".pp-early.pp-shown svg")).toHaveLength(2);
     f.go(1);
     expect(root.dataset.view).toBe("full");
     expect(shownSheets(root)).toEqual(["2"]);
   });
 
-  it("keeps the page when half turns are switched on", () => {
+  it("keeps the page when the early turn is switched on", () => {
     const root = sheets(3);
-    const f = new PageFlipper(root, 3, { halfFractions: [0.5, 0.5, 0.5] }, null, false);
+    const f = new PageFlipper(root, 3, { earlyTurnFractions: [0.5, 0.5, 0.5] }, null, false);
     f.go(1);
-    f.setHalfTurns(true);
+    f.setEarlyTurn(true);
     expect(root.dataset.page).toBe("2");
     expect(f.view).toEqual({ kind: "full", page: 2 });
   });

@@ -137,10 +137,10 @@ describe("layoutChart", () => {
     ]);
   });
 
-  it("splits each page into halves at a system boundary for half turns", () => {
+  it("splits each page at a system boundary for the early turn", () => {
     const page = layoutChart(arrangement(64), TABLET).pages[1]!;
-    expect(page.halfIndex).toBe(Math.ceil(page.systems.length / 2));
-    expect(page.halfY).toBe(page.systems[page.halfIndex]!.y);
+    expect(page.earlyTurnIndex).toBe(Math.ceil(page.systems.length / 2));
+    expect(page.earlyTurnY).toBe(page.systems[page.earlyTurnIndex]!.y);
   });
 
   it("gives an empty chart one empty page", () => {

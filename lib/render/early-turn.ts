@@ -1,14 +1,14 @@
-// The sequence of views a reader steps through. With half turns, between two pages the screen shows
-// the rest of the page being read on top and the next page's top half below, so the player can read
-// on while the turn happens; the full turn follows.
+// The sequence of views a reader steps through. With the early turn, between two pages the screen keeps
+// the rest of the page being read on top while the next page's first systems rise into place below
+// it, so the player can read on while the turn happens; the full turn follows.
 export type View =
   | { kind: "full"; page: number }
-  | { kind: "half"; top: number; bottom: number };
+  | { kind: "early"; top: number; bottom: number };
 
-export function viewSequence(pageCount: number, halfTurns: boolean): View[] {
+export function viewSequence(pageCount: number, earlyTurn: boolean): View[] {
   const views: View[] = [];
   for (let p = 1; p <= Math.max(1, pageCount); p++) {
-    if (halfTurns && p > 1) views.push({ kind: "half", top: p - 1, bottom: p });
+    if (earlyTurn && p > 1) views.push({ kind: "early", top: p - 1, bottom: p });
     views.push({ kind: "full", page: p });
   }
   return views;
@@ -19,7 +19,7 @@ export function step(index: number, delta: number, length: number): number {
   return Math.min(Math.max(index + delta, 0), Math.max(0, length - 1));
 }
 
-/** The page a view counts as, for the page counter and `data-page`: a half view counts as the page it leads into. */
+/** The page a view counts as, for the page counter and `data-page`: an early-turn view counts as the page it leads into. */
 export function viewPage(view: View): number {
   return view.kind === "full" ? view.page : view.bottom;
 }

@@ -1,17 +1,17 @@
 import { describe, expect, it } from "vitest";
-import { indexOfPage, step, viewPage, viewSequence } from "@/lib/render/half";
+import { indexOfPage, step, viewPage, viewSequence } from "@/lib/render/early-turn";
 
 describe("page-turn views", () => {
-  it("steps page by page without half turns", () => {
+  it("steps page by page without the early turn", () => {
     expect(viewSequence(3, false).map(viewPage)).toEqual([1, 2, 3]);
   });
 
-  it("puts a half view between pages with half turns", () => {
+  it("puts an early-turn view between pages with the early turn on", () => {
     expect(viewSequence(3, true)).toEqual([
       { kind: "full", page: 1 },
-      { kind: "half", top: 1, bottom: 2 },
+      { kind: "early", top: 1, bottom: 2 },
       { kind: "full", page: 2 },
-      { kind: "half", top: 2, bottom: 3 },
+      { kind: "early", top: 2, bottom: 3 },
       { kind: "full", page: 3 },
     ]);
   });
