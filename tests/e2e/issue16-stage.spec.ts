@@ -131,7 +131,7 @@ test.describe("issue 16 on the bandstand and in the drawing", () => {
   test("item 26: the early turn raises the next page's first systems under a brass rule marked 'next'", async ({ page }) => {
     await page.goto(`/settings`);
     await expect(page.getByText("Early turn", { exact: true })).toBeVisible();
-    await expect(page.getByText(/h[a]lf[ -]?turn/i)).toHaveCount(0); // the old setting name is gone
+    await expect(page.getByRole("checkbox", { name: /^half/i })).toHaveCount(0); // the old setting is gone
     await page.goto(`${band}/charts/${LANTERNFISH}/bandstand`);
     await drawn(page);
     const toggle = page.getByTestId("early-turn");
