@@ -5,18 +5,12 @@ import { expect, test, type Page } from "@playwright/test";
 import { signIn } from "./helpers/auth";
 import { DEMO_BAND_ID, demoLeader } from "./helpers/demo";
 import { addChart, addGig, chartId, waitForBook } from "./helpers/gig";
+import { CROWDED_TEXT, CROWDED_TITLE } from "./helpers/crowded";
 
 const PHASE = process.env.ISSUE16_SHOTS;
 const shot = (page: Page, item: string) => page.screenshot({ path: `test-results/screenshots/issue16-${item}-${PHASE}.png` });
 const drawn = (page: Page) => expect(page.locator('[data-testid="chart-page"][data-drawn-all="true"]')).toBeAttached({ timeout: 30_000 });
 
-export const CROWDED_TITLE = "The Harbourmaster's Extraordinarily Long Lament for the Seventh Lantern of Port Wren";
-export const CROWDED_TEXT = `A:
-|: Dm7 G7 Em7 A7 | Dm7 G7 Cmaj7 C7 | Fmaj7 Fm7 Em7 Ebdim7 | Dm7 G7(b9) Cmaj7 A7(#5) |
-| Dm7 | G7 | [1 Cmaj7 Am7 | Dm7 G7 :| [2 Cmaj7 | % |
-B:
-| Ebm7 Ab7 Dbmaj7 Bbm7 | Ebm7 Ab7 Dbmaj7 Gm7b5 | Cm7 F7 Bbmaj7 Eb7 | Dm7 G7 C6 Am7 |
-`;
 
 test.describe("issue 16 review screenshots", () => {
   test.skip(!PHASE, "set ISSUE16_SHOTS=before or after");

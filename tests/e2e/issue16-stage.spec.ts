@@ -4,7 +4,7 @@ import { expect, test, type Page } from "@playwright/test";
 import { signIn } from "./helpers/auth";
 import { DEMO_BAND_ID, demoLeader } from "./helpers/demo";
 import { addChart, addGig, chartId, waitForBook } from "./helpers/gig";
-import { CROWDED_TEXT, CROWDED_TITLE } from "./issue16-screens.spec";
+import { CROWDED_TEXT, CROWDED_TITLE } from "./helpers/crowded";
 
 const LANTERNFISH = chartId("lanternfish");
 const band = `/bands/${DEMO_BAND_ID}`;
