@@ -63,6 +63,8 @@ export default defineConfig({
       SMTP_PORT: String(PORT + 25),
       MAIL_FAKE_HTTP_PORT,
       PAYMENT_FAKE: "1",
+      // The suite signs the demo accounts in hundreds of times from one address.
+      RATE_LIMIT_FACTOR: "50",
       PAYMENT_FAKE_PORT: String(PORT + 27),
       PUSH_FAKE: "1",
       PUSH_FAKE_PORT,
