@@ -120,7 +120,7 @@ function Row({ entry, index, props }: { entry: SetlistEntry; index: number; prop
                 </select>
               </label>
             ) : null}
-            <Button tone="danger" onClick={() => props.onRemove(entry.id)} aria-label={`Take ${title} off the set list`}>
+            <Button tone="danger" onClick={() => props.onRemove(entry.id)} aria-label={`Remove ${title} from the set list`}>
               Remove
             </Button>
           </div>
