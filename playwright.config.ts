@@ -37,12 +37,13 @@ export default defineConfig({
       ],
     },
   },
-  // Every spec on a laptop; the reading screens (bandstand view, set lists) again on a 390 px phone.
+  // Every spec on a laptop; the bandstand view again on a 390 px phone. (The set-list spec adds marks
+  // and shares to the one seeded server, so a second pass meets its own rows; it forces 390 px itself.)
   projects: [
     { name: "laptop", use: { ...devices["Desktop Chrome"] } },
     {
       name: "phone",
-      testMatch: /(bandstand|setlist|issue16-stage)\.spec\.ts$/,
+      testMatch: /(bandstand|issue16-stage)\.spec\.ts$/,
       use: { ...devices["Desktop Chrome"], viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, hasTouch: true },
     },
   ],
