@@ -11,17 +11,9 @@ import { randomUUID } from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
+import { rerunWithServerOnlyStub } from "./server-only-hook";
 
-const HOOK = `export async function resolve(s, c, next) { return s === "server-only" ? { url: "data:text/javascript,", shortCircuit: true } : next(s, c); }`;
-if (!process.env.PEDALPOINT_BENCH_HOOKED) {
-  const register = `import { register } from "node:module"; register(${JSON.stringify(`data:text/javascript,${encodeURIComponent(HOOK)}`)});`;
-  const { spawnSync } = await import("node:child_process");
-  const r = spawnSync(process.execPath, ["--import", `data:text/javascript,${encodeURIComponent(register)}`, "--import", "tsx", ...process.argv.slice(1)], {
-    stdio: "inherit",
-    env: { ...process.env, PEDALPOINT_BENCH_HOOKED: "1" },
-  });
-  process.exit(r.status ?? 1);
-}
+rerunWithServerOnlyStub();
 
 const root = path.resolve(import.meta.dirname, "../..");
 const APP_PORT = Number(process.env.BENCH_PUSH_PORT ?? 3660);
