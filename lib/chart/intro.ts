@@ -5,7 +5,7 @@ import {
 } from "@/lib/music";
 import { Note } from "tonal";
 import { INTRO_KINDS, type Bar, type Chart, type IntroChoice, type IntroKind, type IntroResult, type Meter } from "./model";
-import { analyseTop, barOf, barsAsPlayed, blankBar, firstChord, formAsPlayed, lastPassBars, plainCopy, secondsFor, type TopAnalysis } from "./form";
+import { analyseTop, barOf, barsAsPlayed, blankBar, firstChord, formAsPlayed, lastPassBars, plainCopy, secondsFor, type TopAnalysis } from "./as-played";
 import { CONCERT_READER, type IntroReader } from "./intro-reader";
 
 export { CONCERT_READER, type IntroReader } from "./intro-reader";
