@@ -5,15 +5,9 @@ import { useCallback, useEffect, useState } from "react";
 import { Button } from "@/components/ui/Button";
 import { Field, TextAreaField } from "@/components/ui/Field";
 import { Notice } from "@/components/ui/Notice";
-import { SHARING_CAUTION, type ShareState } from "@/lib/setlist";
+import { SHARING_CAUTION, type ShareState, type WireShare } from "@/lib/setlist";
 import { fromLocalInput, gigWhen, toLocalInput } from "./datetime";
 
-interface ShareRow {
-  id: string;
-  email: string;
-  expiresAt: string;
-  state: ShareState;
-}
 
 const STATE_WORDS: Record<ShareState, string> = {
   waiting: "link sent, not opened yet",
@@ -32,7 +26,7 @@ export function defaultEnd(startsAt: string | null): string {
 
 export function SharePanel({ bandId, setlistId, startsAt }: { bandId: string; setlistId: string; startsAt: string | null }) {
   const base = `/api/bands/${encodeURIComponent(bandId)}/setlists/${encodeURIComponent(setlistId)}/shares`;
-  const [shares, setShares] = useState<ShareRow[] | null>(null);
+  const [shares, setShares] = useState<WireShare[] | null>(null);
   const [email, setEmail] = useState("");
   // Until the leader picks an end, it follows the gig's time as shown on the screen (saved or not).
   const [picked, setPicked] = useState<string | null>(null);
@@ -46,7 +40,7 @@ export function SharePanel({ bandId, setlistId, startsAt }: { bandId: string; se
   useEffect(() => {
     let alive = true;
     fetch(base)
-      .then((res) => (res.ok ? (res.json() as Promise<{ shares: ShareRow[] }>) : null))
+      .then((res) => (res.ok ? (res.json() as Promise<{ shares: WireShare[] }>) : null))
       .then((body) => {
         if (alive && body) setShares(body.shares);
       })

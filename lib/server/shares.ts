@@ -5,7 +5,7 @@ import "server-only";
 import type { Kysely, Transaction } from "kysely";
 import type { Database, ShareRow } from "@/db/schema";
 import { sendMail } from "@/lib/mail";
-import { checkShareEnd, shareMail, ShareCreateSchema, shareState, type ShareState } from "@/lib/setlist";
+import { checkShareEnd, shareMail, ShareCreateSchema, shareState, type ShareState, type WireShare } from "@/lib/setlist";
 import { findMembership, requireMember, type Actor } from "./access";
 import { recordChange } from "./changes";
 import { AppError, notFound } from "./errors";
@@ -15,16 +15,7 @@ import { can } from "@/lib/band/roles";
 
 type Db = Kysely<Database> | Transaction<Database>;
 
-export interface ShareDto {
-  id: string;
-  setlistId: string;
-  email: string;
-  expiresAt: string;
-  state: ShareState;
-  createdAt: string;
-}
-
-function toDto(s: ShareRow, now: Date): ShareDto {
+function toWire(s: ShareRow, now: Date): WireShare {
   return { id: s.id, setlistId: s.setlist_id, email: s.email, expiresAt: s.expires_at, state: shareState(s, now), createdAt: s.created_at };
 }
 
@@ -64,7 +55,7 @@ export async function activeShareUsers(db: Db, setlistId: string, now = new Date
   return [...new Set(rows.flatMap((r) => (r.user_id ? [r.user_id] : [])))];
 }
 
-export async function listShares(db: Kysely<Database>, actor: Actor | null, bandId: string, setlistId: string, now = new Date()): Promise<ShareDto[]> {
+export async function listShares(db: Kysely<Database>, actor: Actor | null, bandId: string, setlistId: string, now = new Date()): Promise<WireShare[]> {
   await requireMember(db, actor, bandId, "shareWithSubs");
   const rows = await db
     .selectFrom("shares")
@@ -73,7 +64,7 @@ export async function listShares(db: Kysely<Database>, actor: Actor | null, band
     .where("setlist_id", "=", setlistId)
     .orderBy("created_at", "desc")
     .execute();
-  return rows.map((r) => toDto(r, now));
+  return rows.map((r) => toWire(r, now));
 }
 
 export async function createShare(
@@ -83,7 +74,7 @@ export async function createShare(
   setlistId: string,
   input: unknown,
   now = new Date(),
-): Promise<{ share: ShareDto; link: string; mailed: boolean }> {
+): Promise<{ share: WireShare; link: string; mailed: boolean }> {
   await requireMember(db, actor, bandId, "shareWithSubs");
   const me = actor as Actor;
   const data = parseInput(ShareCreateSchema, input);
@@ -133,11 +124,11 @@ export async function createShare(
     console.error("share mail failed", err);
     mailed = false;
   }
-  return { share: toDto(row, now), link, mailed };
+  return { share: toWire(row, now), link, mailed };
 }
 
 /** Withdraws a share at once; the sub's devices drop the set list at their next sync. */
-export async function revokeShare(db: Kysely<Database>, actor: Actor | null, bandId: string, shareId: string, now = new Date()): Promise<ShareDto> {
+export async function revokeShare(db: Kysely<Database>, actor: Actor | null, bandId: string, shareId: string, now = new Date()): Promise<WireShare> {
   await requireMember(db, actor, bandId, "shareWithSubs");
   return db.transaction().execute(async (trx) => {
     const share = await trx.selectFrom("shares").selectAll().where("id", "=", shareId).where("band_id", "=", bandId).executeTakeFirst();
@@ -147,7 +138,7 @@ export async function revokeShare(db: Kysely<Database>, actor: Actor | null, ban
       await recordChange(trx, { bandId, entity: "share", entityId: shareId, op: "delete", userId: share.user_id });
       if (share.user_id) await recordChange(trx, { bandId, entity: "setlist", entityId: share.setlist_id, op: "delete", userId: share.user_id });
     }
-    return toDto({ ...share, revoked_at: share.revoked_at ?? nowIso(now) }, now);
+    return toWire({ ...share, revoked_at: share.revoked_at ?? nowIso(now) }, now);
   });
 }
 

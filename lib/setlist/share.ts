@@ -15,7 +15,19 @@ export const ShareCreateSchema = z
   .strict();
 export type ShareCreate = z.infer<typeof ShareCreateSchema>;
 
-export type ShareState = "waiting" | "accepted" | "ended" | "revoked";
+export const SHARE_STATES = ["waiting", "accepted", "ended", "revoked"] as const;
+export type ShareState = (typeof SHARE_STATES)[number];
+
+/** A share as the server sends it to the leader's screen: the one wire shape of a share. */
+export const WireShareSchema = z.object({
+  id: z.string(),
+  setlistId: z.string(),
+  email: z.string(),
+  expiresAt: z.string(),
+  state: z.enum(SHARE_STATES),
+  createdAt: z.string(),
+});
+export type WireShare = z.infer<typeof WireShareSchema>;
 
 export interface ShareLike {
   user_id: string | null;
