@@ -30,6 +30,11 @@ export async function requireMember(
   if (!actor) throw new AppError("unauthenticated", "Please sign in first.");
   const m = await findMembership(db, actor.userId, bandId);
   if (!m) throw new AppError("not_found", "That band was not found.");
+  return assertMay(m, permission);
+}
+
+/** Checks an already-resolved membership against a permission: the one wording of a refusal. */
+export function assertMay(m: Membership, permission: Permission): Membership {
   if (!can(m.role, permission)) {
     throw new AppError("forbidden", `This needs ${describePermission(permission)}; you are a ${m.role} in this band.`);
   }

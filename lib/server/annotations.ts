@@ -5,7 +5,7 @@ import type { Kysely, Transaction } from "kysely";
 import type { AnnotationRow, Database, Membership } from "@/db/schema";
 import { ChartSchema, type Chart } from "@/lib/chart/model";
 import { anchorFor, MarkInputSchema, MarkUpdateSchema, readMark, reanchorMark, type Mark, type MarkData } from "@/lib/setlist";
-import { requireMember, type Actor } from "./access";
+import { assertMay, requireMember, type Actor } from "./access";
 import { recordChange } from "./changes";
 import { AppError, notFound } from "./errors";
 import { parseInput } from "./input";
@@ -60,16 +60,21 @@ function placed(chart: Chart, revision: number, data: MarkData): MarkData {
   return here ? { ...data, anchor: here, chartRevision: revision, lost: false } : data;
 }
 
-/** Creates or replaces the actor's own mark. `baseRevision` null = create. Shared by the routes and the sync push. */
-export async function saveMarkUnchecked(
-  db: Kysely<Database>,
-  m: Membership,
-  id: string,
-  chartId: string,
-  data: MarkData,
-  baseRevision: number | null,
-  now = new Date(),
-): Promise<Mark> {
+export interface SaveMarkOptions {
+  id: string;
+  chartId: string;
+  data: MarkData;
+  /** null: create (refused when the id is taken); a number: replace that revision (else a conflict). */
+  baseRevision: number | null;
+  now?: Date;
+}
+
+/**
+ * Creates or replaces the member's own mark, as a member already resolved by the one access check.
+ * Shared by the routes and the sync push.
+ */
+export async function saveMarkAs(db: Kysely<Database>, m: Membership, { id, chartId, data, baseRevision, now = new Date() }: SaveMarkOptions): Promise<Mark> {
+  assertMay(m, "personalMarks");
   const { chart, revision } = await readableChart(db, m, chartId, now);
   const checked = placed(chart, revision, data);
   return db.transaction().execute(async (trx) => {
@@ -100,7 +105,9 @@ export async function saveMarkUnchecked(
   });
 }
 
-export async function deleteMarkUnchecked(db: Kysely<Database>, m: Membership, id: string, now = new Date()): Promise<void> {
+/** Deletes the member's own mark, as a member already resolved by the one access check. */
+export async function deleteMarkAs(db: Kysely<Database>, m: Membership, { id, now = new Date() }: { id: string; now?: Date }): Promise<void> {
+  assertMay(m, "personalMarks");
   await db.transaction().execute(async (trx) => {
     const r = await trx
       .updateTable("annotations")
@@ -118,7 +125,7 @@ export async function deleteMarkUnchecked(db: Kysely<Database>, m: Membership, i
 export async function createMark(db: Kysely<Database>, actor: Actor | null, bandId: string, input: unknown, now = new Date()): Promise<Mark> {
   const m = await requireMember(db, actor, bandId, "personalMarks");
   const data = parseInput(MarkInputSchema, input);
-  return saveMarkUnchecked(db, m, data.id ?? newId(), data.chartId, data.data, null, now);
+  return saveMarkAs(db, m, { id: data.id ?? newId(), chartId: data.chartId, data: data.data, baseRevision: null, now });
 }
 
 export async function updateMark(db: Kysely<Database>, actor: Actor | null, bandId: string, markId: string, input: unknown, now = new Date()): Promise<Mark> {
@@ -126,12 +133,12 @@ export async function updateMark(db: Kysely<Database>, actor: Actor | null, band
   const data = parseInput(MarkUpdateSchema, input);
   const current = await db.selectFrom("annotations").select(["chart_id", "user_id"]).where("id", "=", markId).where("band_id", "=", bandId).executeTakeFirst();
   if (!current || current.user_id !== m.user_id) throw notFound("That mark");
-  return saveMarkUnchecked(db, m, markId, current.chart_id, data.data, data.baseRevision, now);
+  return saveMarkAs(db, m, { id: markId, chartId: current.chart_id, data: data.data, baseRevision: data.baseRevision, now });
 }
 
 export async function deleteMark(db: Kysely<Database>, actor: Actor | null, bandId: string, markId: string, now = new Date()): Promise<void> {
   const m = await requireMember(db, actor, bandId, "personalMarks");
-  await deleteMarkUnchecked(db, m, markId, now);
+  await deleteMarkAs(db, m, { id: markId, now });
 }
 
 /**

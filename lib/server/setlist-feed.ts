@@ -6,12 +6,13 @@ import type { Database, Membership } from "@/db/schema";
 import type { Mutation, MutationResult, WireAnnotation, WireSetlist } from "@/lib/offline/protocol";
 import { MarkDataSchema, SetlistInputSchema } from "@/lib/setlist";
 import { z } from "zod";
-import { deleteMarkUnchecked, saveMarkUnchecked, toMark } from "./annotations";
+import { assertMay } from "./access";
+import { deleteMarkAs, saveMarkAs, toMark } from "./annotations";
 import { AppError } from "./errors";
-import { deleteSetlistUnchecked, loadSetlists, saveSetlistUnchecked } from "./setlists";
+import { deleteSetlistAs, loadSetlists, saveSetlistAs } from "./setlists";
 import { sharedSetlistIds } from "./shares";
 import { zodIssues } from "./zod-issues";
-import { can, describePermission } from "@/lib/band/roles";
+import { can } from "@/lib/band/roles";
 
 export type FeedRow<T> = { id: string; op: "upsert"; data: T } | { id: string; op: "delete" };
 
@@ -79,14 +80,15 @@ function parsed<T>(schema: z.ZodType<T>, data: unknown): T {
 /** Applies one set-list mutation from a device. The caller has already resolved the membership. */
 export async function pushSetlistMutation(db: Kysely<Database>, membership: Membership, m: Mutation, now = new Date()): Promise<MutationResult> {
   try {
-    if (!can(membership.role, "editSetlists")) throw new AppError("forbidden", `This needs ${describePermission("editSetlists")}; you are a ${membership.role} in this band.`);
+    // Refused before the data is read, as the route refuses before it parses the body.
+    assertMay(membership, "editSetlists");
     if (m.op === "delete") {
-      await deleteSetlistUnchecked(db, membership.user_id, membership.band_id, m.id, now);
+      await deleteSetlistAs(db, membership, { id: m.id, now });
       return { mutationId: m.mutationId, status: "applied", revision: m.baseRevision ?? 0, data: null };
     }
     const data = parsed(SetlistInputSchema, m.data);
     const base = m.op === "restore" || !m.baseRevision ? null : m.baseRevision;
-    const saved = await saveSetlistUnchecked(db, membership.user_id, membership.band_id, m.id, data, base, now);
+    const saved = await saveSetlistAs(db, membership, { id: m.id, data, baseRevision: base, now });
     return { mutationId: m.mutationId, status: "applied", revision: saved.revision, data: saved };
   } catch (err) {
     return outcome(m.mutationId, err);
@@ -99,12 +101,12 @@ const AnnotationPushSchema = z.object({ chartId: z.string().min(1).max(64), data
 export async function pushAnnotationMutation(db: Kysely<Database>, membership: Membership, m: Mutation, now = new Date()): Promise<MutationResult> {
   try {
     if (m.op === "delete") {
-      await deleteMarkUnchecked(db, membership, m.id, now);
+      await deleteMarkAs(db, membership, { id: m.id, now });
       return { mutationId: m.mutationId, status: "applied", revision: m.baseRevision ?? 0, data: null };
     }
     const data = parsed(AnnotationPushSchema, m.data);
     const base = m.op === "restore" || !m.baseRevision ? null : m.baseRevision;
-    const saved = await saveMarkUnchecked(db, membership, m.id, data.chartId, data.data, base, now);
+    const saved = await saveMarkAs(db, membership, { id: m.id, chartId: data.chartId, data: data.data, baseRevision: base, now });
     return { mutationId: m.mutationId, status: "applied", revision: saved.revision, data: saved };
   } catch (err) {
     return outcome(m.mutationId, err);

@@ -12,7 +12,7 @@ import {
   type Setlist,
   type SetlistEntry,
 } from "@/lib/setlist";
-import { requireMember, type Actor } from "./access";
+import { assertMay, requireMember, type Actor } from "./access";
 import { recordChange } from "./changes";
 import { AppError, notFound, type FieldIssue } from "./errors";
 import { parseInput } from "./input";
@@ -164,16 +164,22 @@ export interface SetlistWrite {
   entries: SetlistEntry[];
 }
 
-/** Creates or replaces a set list. `baseRevision` null = create. Shared by the routes and the sync push. */
-export async function saveSetlistUnchecked(
-  db: Kysely<Database>,
-  actorId: string,
-  bandId: string,
-  id: string,
-  data: SetlistWrite,
-  baseRevision: number | null,
-  now = new Date(),
-): Promise<Setlist> {
+export interface SaveSetlistOptions {
+  id: string;
+  data: SetlistWrite;
+  /** null: create (refused when the id is taken); a number: replace that revision (else a conflict). */
+  baseRevision: number | null;
+  now?: Date;
+}
+
+/**
+ * Creates or replaces a set list as a member already resolved by the one access check (requireMember).
+ * Shared by the routes and the sync push; checks the member may edit set lists.
+ */
+export async function saveSetlistAs(db: Kysely<Database>, member: Membership, { id, data, baseRevision, now = new Date() }: SaveSetlistOptions): Promise<Setlist> {
+  assertMay(member, "editSetlists");
+  const bandId = member.band_id;
+  const actorId = member.user_id;
   await checkEntries(db, bandId, data.entries);
   return db.transaction().execute(async (trx) => {
     const current = await trx.selectFrom("setlists").selectAll().where("id", "=", id).executeTakeFirst();
@@ -214,9 +220,9 @@ export async function saveSetlistUnchecked(
 }
 
 export async function createSetlist(db: Kysely<Database>, actor: Actor | null, bandId: string, input: unknown, now = new Date()): Promise<Setlist> {
-  await requireMember(db, actor, bandId, "editSetlists");
+  const member = await requireMember(db, actor, bandId, "editSetlists");
   const data = parseInput(SetlistCreateSchema, input);
-  return saveSetlistUnchecked(db, (actor as Actor).userId, bandId, data.id ?? newId(), data, null, now);
+  return saveSetlistAs(db, member, { id: data.id ?? newId(), data, baseRevision: null, now });
 }
 
 export async function updateSetlist(
@@ -227,12 +233,16 @@ export async function updateSetlist(
   input: unknown,
   now = new Date(),
 ): Promise<Setlist> {
-  await requireMember(db, actor, bandId, "editSetlists");
+  const member = await requireMember(db, actor, bandId, "editSetlists");
   const data = parseInput(SetlistUpdateSchema, input);
-  return saveSetlistUnchecked(db, (actor as Actor).userId, bandId, setlistId, data, data.baseRevision, now);
+  return saveSetlistAs(db, member, { id: setlistId, data, baseRevision: data.baseRevision, now });
 }
 
-export async function deleteSetlistUnchecked(db: Kysely<Database>, actorId: string, bandId: string, setlistId: string, now = new Date()): Promise<void> {
+/** Deletes a set list (and ends its shares) as an already-resolved member who may edit set lists. */
+export async function deleteSetlistAs(db: Kysely<Database>, member: Membership, { id: setlistId, now = new Date() }: { id: string; now?: Date }): Promise<void> {
+  assertMay(member, "editSetlists");
+  const bandId = member.band_id;
+  const actorId = member.user_id;
   await db.transaction().execute(async (trx) => {
     const r = await trx
       .updateTable("setlists")
@@ -249,8 +259,8 @@ export async function deleteSetlistUnchecked(db: Kysely<Database>, actorId: stri
 }
 
 export async function deleteSetlist(db: Kysely<Database>, actor: Actor | null, bandId: string, setlistId: string, now = new Date()): Promise<void> {
-  await requireMember(db, actor, bandId, "editSetlists");
-  await deleteSetlistUnchecked(db, (actor as Actor).userId, bandId, setlistId, now);
+  const member = await requireMember(db, actor, bandId, "editSetlists");
+  await deleteSetlistAs(db, member, { id: setlistId, now });
 }
 
 /** A copy for the next gig: same sets, tunes and arrangements, new name/date/venue if given. Shares are not copied. */
@@ -262,17 +272,16 @@ export async function duplicateSetlist(
   input: unknown,
   now = new Date(),
 ): Promise<Setlist> {
-  await requireMember(db, actor, bandId, "editSetlists");
+  const member = await requireMember(db, actor, bandId, "editSetlists");
   const opts = parseInput(SetlistDuplicateSchema, input ?? {});
   const found = await loadOne(db, bandId, setlistId);
   if (!found || found.row.deleted_at) throw notFound("That set list");
   const src = found.setlist;
-  return saveSetlistUnchecked(
-    db,
-    (actor as Actor).userId,
-    bandId,
-    opts.id ?? newId(),
-    {
+  return saveSetlistAs(db, member, {
+    id: opts.id ?? newId(),
+    baseRevision: null,
+    now,
+    data: {
       name: opts.name ?? `${src.name} (copy)`,
       startsAt: opts.startsAt !== undefined ? opts.startsAt : src.startsAt,
       venue: opts.venue ?? src.venue,
@@ -293,7 +302,5 @@ export async function duplicateSetlist(
         notes: e.notes,
       })),
     },
-    null,
-    now,
-  );
+  });
 }

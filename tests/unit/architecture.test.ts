@@ -78,4 +78,11 @@ describe("one way to do each thing", () => {
       .map(rel);
     expect(offenders).toEqual([]);
   });
+
+  it("no exported use case skips its access check (no exported …Unchecked)", () => {
+    const offenders = ["app", "lib"].flatMap(sourceFiles)
+      .filter((f) => /export\s+(async\s+)?(function|const)\s+\w*Unchecked\b/.test(fs.readFileSync(f, "utf8")))
+      .map(rel);
+    expect(offenders).toEqual([]);
+  });
 });
