@@ -16,6 +16,7 @@ import {
   type RenderContext,
 } from "./vexflow";
 import type { ChartLayout, Page, PlacedBar, System } from "@/lib/render/types";
+import { endingLabel } from "@/lib/chart/endings";
 import { melodyNotes, melodyTies } from "./melody";
 import { textWidth } from "@/lib/render/metrics";
 import { addText, drawChordSymbol, drawEndingBracket, drawLabelBox } from "./svg-text";
@@ -118,7 +119,7 @@ function drawLabels(ctx: RenderContext, b: PlacedBar, system: System) {
       x1: b.endingStart ? b.endingX : b.x,
       x2: b.x + b.width - (b.endingEnd ? 6 : 0),
       y: top + 4,
-      label: b.endingStart && b.bar.ending !== null ? `${b.bar.ending}.` : null,
+      label: b.endingStart && b.bar.ending !== null ? endingLabel(b.bar) : null,
       open: b.endingStart,
       close: b.endingEnd && b.bar.ending === 1,
     });

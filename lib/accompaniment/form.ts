@@ -1,46 +1,13 @@
 // The bars in the order a band plays them: the intro, then the form with its repeats taken the
 // right number of times and each ending on its own pass, `%` bars filled in, then tonight's ending
 // (a tag plays the last bars again; a vamp-out repeats them). Pure.
+import { playingOrder } from "@/lib/chart/form";
 import type { ChordSlot, PerformanceBar } from "@/lib/chart/model";
 import type { EndingChoice } from "@/lib/setlist/model";
 import type { PlayedBar } from "./types";
 
 /** A vamp-out lasts until the leader cues the end; playback cannot wait for a cue, so it goes round this many times. */
 export const VAMP_OUT_TIMES = 3;
-const MAX_PLAYED = 4096;
-
-/** Indices of `bars` in playing order, repeats and endings taken. */
-function unrollIndices(bars: PerformanceBar[]): number[] {
-  const out: number[] = [];
-  let start = 0;
-  let pass = 1;
-  let finished = false; // a repeat just completed: the next bar outside any ending starts afresh
-  for (let i = 0; i < bars.length && out.length < MAX_PLAYED; i++) {
-    const b = bars[i]!;
-    if (b.repeatStart && (i !== start || finished)) {
-      start = i;
-      pass = 1;
-      finished = false;
-    } else if (finished && b.ending === null) {
-      start = i;
-      pass = 1;
-      finished = false;
-    }
-    if (b.ending !== null && b.ending !== pass) continue; // not this pass's ending
-    out.push(i);
-    if (b.repeatEnd) {
-      const times = b.repeatTimes ?? 2;
-      if (pass < times) {
-        pass++;
-        i = start - 1;
-      } else {
-        finished = true;
-      }
-    }
-  }
-  return out;
-}
-
 function sectionName(label: string | null, part: PerformanceBar["part"]): string | null {
   if (label === null) return null;
   return part === "intro" ? "Intro" : label;
@@ -59,8 +26,8 @@ export function playedBars(bars: PerformanceBar[], ending?: EndingChoice | null)
     section = sectionName(b.section, b.part) ?? (b.part === "form" && out.length === 0 ? "A" : section);
     out.push({ number: out.length + 1, index: b.index, part, section: part === "tag" ? "Ending" : section, chords: chords.map((c) => ({ ...c })) });
   };
-  for (const i of unrollIndices(intro)) play(intro[i]!, "intro");
-  const formOrder = unrollIndices(form);
+  for (const i of playingOrder(intro)) play(intro[i]!, "intro");
+  const formOrder = playingOrder(form);
   for (const i of formOrder) play(form[i]!, "form");
   const extra = endingBars(ending);
   if (extra && formOrder.length > 0) {

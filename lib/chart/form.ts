@@ -1,5 +1,6 @@
 // Walking the form of a chart (bars as played, the top, the last time through) and reading its top.
 import { analyseChord, formatChord, harmonicFunction, parseChord, parseKey, type ChordTones, type HarmonicFunction } from "@/lib/music";
+import { lastEndingPass, playsOnPass, type RepeatMarks } from "./endings";
 import type { Bar, Chart, Meter } from "./model";
 
 export function blankBar(): Bar {
@@ -53,16 +54,17 @@ export function lastPassBars(chart: Chart): Bar[] {
 /** For each bar of a section: is it played the last time through (not an earlier ending)? */
 export function lastPassMask(bars: readonly Bar[]): boolean[] {
   const maxEnding = new Map<number, number>();
-  // Endings belong to the repeat they follow; the highest number in each group is the last pass.
+  // Endings belong to the repeat they follow; the highest pass in each group is the last one.
   let group = 0;
   const groups: number[] = [];
   bars.forEach((b, i) => {
     const prev = bars[i - 1];
     if (b.ending === null && prev && prev.ending !== null) group++;
     groups.push(group);
-    if (b.ending !== null) maxEnding.set(group, Math.max(maxEnding.get(group) ?? 0, b.ending));
+    const last = lastEndingPass(b);
+    if (last !== null) maxEnding.set(group, Math.max(maxEnding.get(group) ?? 0, last));
   });
-  return bars.map((b, i) => b.ending === null || b.ending === maxEnding.get(groups[i]!));
+  return bars.map((b, i) => b.ending === null || playsOnPass(b, maxEnding.get(groups[i]!)!));
 }
 
 /** The first chord of the form that is not N.C. */
@@ -121,12 +123,13 @@ export function analyzeTop(chart: Chart): TopAnalysis {
 const MAX_PLAYED = 4096;
 
 /**
- * The bars in the order the band plays them: repeats taken (`:|x3` three times through), each
- * ending played on its own pass, bars outside an ending every time. A `:|` with no `|:` goes back to
- * the start, or to just after the last repeat that was finished. `%` bars stay as they are.
+ * Where each bar the band plays sits in `bars`, in playing order: repeats taken (`:|x3` three times
+ * through), each ending played on its own passes, bars outside an ending every time. A `:|` with no
+ * `|:` goes back to the start, or to just after the last repeat that was finished. Linear in the bars
+ * played, which a guard keeps finite for a malformed chart.
  */
-export function barsAsPlayed(bars: readonly Bar[]): Bar[] {
-  const out: Bar[] = [];
+export function playingOrder(bars: readonly RepeatMarks[]): number[] {
+  const out: number[] = [];
   let start = 0;
   let pass = 1;
   let jumped = false;
@@ -142,11 +145,11 @@ export function barsAsPlayed(bars: readonly Bar[]): Bar[] {
       }
     }
     jumped = false;
-    if (b.ending !== null && b.ending !== pass) {
+    if (!playsOnPass(b, pass)) {
       i++;
       continue;
     }
-    out.push(b);
+    out.push(i);
     if (b.repeatEnd) {
       if (pass < (b.repeatTimes ?? 2)) {
         pass++;
@@ -162,6 +165,11 @@ export function barsAsPlayed(bars: readonly Bar[]): Bar[] {
     i++;
   }
   return out;
+}
+
+/** The bars in the order the band plays them (see `playingOrder`). `%` bars stay as they are. */
+export function barsAsPlayed<B extends RepeatMarks>(bars: readonly B[]): B[] {
+  return playingOrder(bars).map((i) => bars[i]!);
 }
 
 /** The form's bars as played (see `barsAsPlayed`): what "an N-bar form" and a duration count. */

@@ -79,6 +79,7 @@ function turnBack(bars: Bar[], target: ChordTones, meter: Meter, tritone: boolea
   const cells = meter.beats >= 2 && meter.beats % 2 === 0 ? [two, five] : [five];
   const turnedBar: Bar = { ...barOf(cells, meter), repeatStart: last.repeatStart, repeatEnd: last.repeatEnd, ending: last.ending };
   if (last.repeatTimes) turnedBar.repeatTimes = last.repeatTimes;
+  if (last.endingPasses) turnedBar.endingPasses = last.endingPasses;
   return { bars: [...bars.slice(0, -1), turnedBar], turned: cells.join(" ") };
 }
 

@@ -35,6 +35,11 @@ export const BarSchema = z.object({
   repeatTimes: z.number().int().min(2).max(16).optional(),
   /** 1st/2nd ending this bar belongs to; consecutive bars with the same number form one bracket. */
   ending: z.number().int().min(1).max(8).nullable().default(null),
+  /**
+   * An ending played on more than one pass (`[1,2` in the text, MusicXML `number="1, 2"`): every pass,
+   * ascending, the first being `ending`. Absent when the ending is for one pass only.
+   */
+  endingPasses: z.array(z.number().int().min(1).max(8)).min(2).max(8).optional(),
   melody: z.array(MelodyNoteSchema).max(64).optional(),
   /**
    * A pickup (anacrusis): the chart's first bar is short and lasts this many beats of the meter
@@ -129,6 +134,7 @@ export interface PerformanceBar {
   repeatEnd: boolean;
   repeatTimes?: number;
   ending: number | null;
+  endingPasses?: number[];
   /** The barline closing this bar: double at a section's end, final at the end of the chart. */
   barline: Barline;
   melody?: MelodyNote[];

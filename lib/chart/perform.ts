@@ -67,6 +67,7 @@ export function arrange(chart: Chart, opts: PerformanceOptions = {}): Arrangemen
       source,
     };
     if (b.repeatTimes !== undefined) pb.repeatTimes = b.repeatTimes;
+    if (b.endingPasses) pb.endingPasses = b.endingPasses;
     if (b.pickup !== undefined) pb.pickup = b.pickup;
     if (b.melody) pb.melody = b.melody.map((n) => ({ ...n, pitch: writtenPitch(n.pitch, concert.key, instrument.id) }));
     bars.push(pb);

@@ -5,6 +5,7 @@ import { ChartSchema, type Bar, type Chart, type Meter, type Section } from "./m
 import { scanBarLine, type BarToken } from "./text-scan";
 import { barQuarters, beatWords, noteQuarters, readMelodyNote } from "./melody";
 import { ChartTextError } from "./text-error";
+import { endingFields } from "./endings";
 import { METADATA_FIELDS, readField, type Field, type Meta } from "./text-fields";
 
 export { ChartTextError, METADATA_FIELDS };
@@ -41,7 +42,7 @@ interface PendingBar {
   bar: Bar;
   line: number;
   column: number;
-  endingStart: number | null;
+  endingStart: number[] | null;
   endingColumn: number;
   endingClose: boolean;
 }
@@ -128,28 +129,29 @@ function buildBar(tok: Extract<BarToken, { kind: "bar" }>, meter: Meter, line: n
 
 /** Ending runs: a `[n` lasts until a `:|`, a `]`, the next `[n` or `|:`, or the end of the section. */
 function settleEndings(sec: PendingSection): void {
-  let active: number | null = null;
-  const runs: { n: number; last: PendingBar }[] = [];
-  // Which ending numbers occur, so each check is one look-up (a long section stays linear).
+  let active: number[] | null = null;
+  const runs: { passes: number[]; last: PendingBar }[] = [];
+  // Which pass numbers occur, so each check is one look-up (a long section stays linear).
   const numbers = new Set<number>();
   for (const p of sec.bars) {
     if (p.bar.repeatStart) active = null;
     if (p.endingStart !== null) {
-      const n = p.endingStart;
-      if (n > 1 && !numbers.has(n - 1)) {
-        throw new ChartTextError(p.line, p.endingColumn, `Ending [${n} comes without an ending [${n - 1} before it in this section`);
+      const first = p.endingStart[0]!;
+      if (first > 1 && !numbers.has(first - 1)) {
+        throw new ChartTextError(p.line, p.endingColumn, `Ending [${first} comes without an ending [${first - 1} before it in this section`);
       }
-      active = n;
-      numbers.add(n);
-      runs.push({ n, last: p });
+      active = p.endingStart;
+      for (const n of active) numbers.add(n);
+      runs.push({ passes: active, last: p });
     }
-    p.bar.ending = active;
+    Object.assign(p.bar, endingFields(active));
     if (active !== null) runs[runs.length - 1]!.last = p;
     if (p.bar.repeatEnd || p.endingClose) active = null;
   }
   for (const r of runs) {
-    if (numbers.has(r.n + 1) && !r.last.bar.repeatEnd) {
-      throw new ChartTextError(r.last.line, r.last.column, `Ending [${r.n} must end with :| so the band goes back for the next time through`);
+    const label = r.passes.join(",");
+    if (numbers.has(r.passes[r.passes.length - 1]! + 1) && !r.last.bar.repeatEnd) {
+      throw new ChartTextError(r.last.line, r.last.column, `Ending [${label} must end with :| so the band goes back for the next time through`);
     }
   }
 }

@@ -14,8 +14,8 @@ export interface ScannedBar {
   repeatStart: boolean;
   repeatEnd: boolean;
   repeatTimes?: number;
-  /** `[n` at the start of this bar. */
-  ending: number | null;
+  /** `[n` (or `[1,2` for several passes) at the start of this bar: the passes it names. */
+  ending: number[] | null;
   /** `]` after this bar closes its ending. */
   endingClose: boolean;
   /** Column of the `[n`, for errors about the ending. */
@@ -27,7 +27,7 @@ interface Open {
   words: Word[];
   column: number;
   repeatStart: boolean;
-  ending: number | null;
+  ending: number[] | null;
   endingColumn?: number;
   byBarline: boolean;
 }
@@ -35,7 +35,7 @@ interface Open {
 // Sticky patterns read at the cursor without copying the rest of the line (a slice per mark would
 // make a line of many marks cost its length squared).
 const TIMES_RE = /\s*[x×](\d{1,2})(?![\w#])/y;
-const ENDING_RE = /\[(\d)\.?/y;
+const ENDING_RE = /\[(\d(?:,\s?\d)*)\.?/y;
 
 function readAt(re: RegExp, body: string, at: number): RegExpExecArray | null {
   re.lastIndex = at;
@@ -123,13 +123,14 @@ export function scanBarLine(body: string, offset: number, line: number): Scanned
     }
     if (ch === "[") {
       const m = readAt(ENDING_RE, body, i);
-      if (!m) fail(i, "An ending is written [1, [2 … at the start of its bar");
+      if (!m) fail(i, "An ending is written [1, [2 (or [1,2 for two passes) … at the start of its bar");
       const c = cur as Open | null;
       if (c && c.words.length > 0) fail(i, `An ending (${m![0]}) goes at the start of a bar, right after the |`);
-      const n = Number(m![1]);
-      if (n < 1 || n > 8) fail(i, "Endings are numbered 1 to 8");
+      const passes = m![1]!.split(",").map((d) => Number(d.trim()));
+      if (passes.some((n) => n < 1 || n > 8)) fail(i, "Endings are numbered 1 to 8");
+      if (passes.some((n, k) => k > 0 && n <= passes[k - 1]!)) fail(i, "An ending for several passes names them in rising order, like [1,2");
       if (!c) open(i, false);
-      (cur as Open | null)!.ending = n;
+      (cur as Open | null)!.ending = passes;
       (cur as Open | null)!.endingColumn = col(i);
       i += m![0].length;
       continue;

@@ -3,6 +3,7 @@
 // author's own line breaks are not part of the model, so they are not kept.
 import type { Bar, Chart, ChordSlot, Meter, Section } from "./model";
 import { formatMelodyNote } from "./melody";
+import { endingPassesOf, sameEnding } from "./endings";
 
 export const BARS_PER_LINE = 4;
 
@@ -25,7 +26,7 @@ function endingStarts(bars: Bar[], i: number): boolean {
   const bar = bars[i]!;
   const prev = bars[i - 1];
   if (bar.ending === null) return false;
-  return !prev || prev.ending !== bar.ending || prev.repeatEnd || bar.repeatStart;
+  return !prev || !sameEnding(prev, bar) || prev.repeatEnd || bar.repeatStart;
 }
 
 function endingNeedsClose(bars: Bar[], i: number): boolean {
@@ -45,7 +46,7 @@ function sectionText(section: Section, meter: Meter): string[] {
       const bar = bars[i]!;
       const prevClosed = i > start && bars[i - 1]!.repeatEnd;
       const opener = bar.repeatStart ? "|: " : prevClosed ? "" : "| ";
-      const ending = endingStarts(bars, i) ? `[${bar.ending} ` : "";
+      const ending = endingStarts(bars, i) ? `[${endingPassesOf(bar)!.join(",")} ` : "";
       const content = bar.simile ? "%" : chordText(bar.chords, meter, bar.pickup);
       const close = endingNeedsClose(bars, i) ? " ]" : "";
       const repeat = bar.repeatEnd ? ` :|${bar.repeatTimes && bar.repeatTimes > 2 ? `x${bar.repeatTimes}` : ""}` : "";

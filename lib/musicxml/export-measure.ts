@@ -1,6 +1,7 @@
 // One bar of the chart model → the inside of a MusicXML <measure>: <harmony> chord symbols, the melody
 // (or invisible rests carrying the chords to their beats) and the barlines.
 import type { Bar, MelodyNote } from "@/lib/chart/model";
+import { endingNumberText, sameEnding } from "@/lib/chart/endings";
 import { symbolToHarmony, type Harmony } from "./kinds";
 import { fifthsOfKey, parseScientific, shiftPitch, simplifyPitch, type KeyName, type Spelled, type Transposition } from "./pitch";
 import { esc } from "./xml";
@@ -114,15 +115,15 @@ export function notesXml(bar: Bar, ctx: MeasureCtx, barDiv: number, tiedIn: bool
 /** Left and right <barline> of a bar: repeats, endings, and the double/final bar at section ends. */
 export function barlines(bar: Bar, prev: Bar | undefined, next: Bar | undefined, sectionEnd: boolean, last: boolean): { left: string; right: string } {
   let left = "";
-  const endingStarts = bar.ending !== null && (prev?.ending !== bar.ending || prev?.repeatEnd === true || bar.repeatStart);
+  const endingStarts = bar.ending !== null && (!sameEnding(prev, bar) || prev?.repeatEnd === true || bar.repeatStart);
   if (bar.repeatStart || endingStarts) {
-    left = `<barline location="left">${endingStarts ? `<ending number="${bar.ending}" type="start"/>` : ""}${bar.repeatStart ? `<repeat direction="forward"/>` : ""}</barline>`;
+    left = `<barline location="left">${endingStarts ? `<ending number="${endingNumberText(bar)}" type="start"/>` : ""}${bar.repeatStart ? `<repeat direction="forward"/>` : ""}</barline>`;
   }
-  const endingStops = bar.ending !== null && (next?.ending !== bar.ending || bar.repeatEnd || next?.repeatStart === true);
+  const endingStops = bar.ending !== null && (!sameEnding(next, bar) || bar.repeatEnd || next?.repeatStart === true);
   const style = last ? "light-heavy" : bar.repeatEnd ? "light-heavy" : sectionEnd ? "light-light" : "";
   let right = "";
   if (style || endingStops || bar.repeatEnd) {
-    const ending = endingStops ? `<ending number="${bar.ending}" type="${bar.repeatEnd || next?.ending ? "stop" : "discontinue"}"/>` : "";
+    const ending = endingStops ? `<ending number="${endingNumberText(bar)}" type="${bar.repeatEnd || next?.ending ? "stop" : "discontinue"}"/>` : "";
     const times = bar.repeatTimes ? ` times="${bar.repeatTimes}"` : "";
     right = `<barline location="right">${style ? `<bar-style>${style}</bar-style>` : ""}${ending}${bar.repeatEnd ? `<repeat direction="backward"${times}/>` : ""}</barline>`;
   }

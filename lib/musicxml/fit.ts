@@ -72,11 +72,12 @@ function fitMelody(bar: Bar, quarters: number, number: string, skipped: Skipped)
 /** Endings that chart text cannot close (an ending before another without :|) become plain bars. */
 function fitEndings(section: Section, numbers: Map<Bar, string>, skipped: Skipped): void {
   try {
-    parseChartText(serializeChart({ title: "t", composer: "", key: "C", meter: { beats: 4, unit: 4 }, tempo: null, feel: "", intro: null, sections: [{ ...section, bars: section.bars.map((b) => ({ chords: [{ symbol: "C", beat: 0, beats: 4 }], simile: false, repeatStart: b.repeatStart, repeatEnd: b.repeatEnd, ending: b.ending, ...(b.repeatTimes ? { repeatTimes: b.repeatTimes } : {}) })) }] }));
+    parseChartText(serializeChart({ title: "t", composer: "", key: "C", meter: { beats: 4, unit: 4 }, tempo: null, feel: "", intro: null, sections: [{ ...section, bars: section.bars.map((b) => ({ chords: [{ symbol: "C", beat: 0, beats: 4 }], simile: false, repeatStart: b.repeatStart, repeatEnd: b.repeatEnd, ending: b.ending, ...(b.endingPasses ? { endingPasses: b.endingPasses } : {}), ...(b.repeatTimes ? { repeatTimes: b.repeatTimes } : {}) })) }] }));
   } catch {
     for (const b of section.bars) {
       if (b.ending !== null) skipped.add("endings that do not close with a repeat, read as plain bars", numbers.get(b));
       b.ending = null;
+      delete b.endingPasses;
     }
   }
 }

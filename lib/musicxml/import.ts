@@ -2,6 +2,7 @@
 // Harmonies come from the first part that has any, the melody from the first part; a transposing
 // part (<transpose>) is read back to concert pitch measure by measure.
 import type { Bar, Chart, Section } from "@/lib/chart/model";
+import { endingFields } from "@/lib/chart/endings";
 import { concertMappings, sameTransposition } from "./concert";
 import { fitToChartText } from "./fit";
 import { chordSlots, melodyOf, round, settleSimile, tempoInMeterBeats, unitWords } from "./import-bars";
@@ -136,7 +137,7 @@ export function importMusicXml(root: XNode, opts: ImportOptions = {}): ImportRes
   const sections: Section[] = [];
   const barNumbers = new Map<Bar, string>();
   let current: Section | null = null;
-  let ending: number | null = null;
+  let ending: number[] | null = null;
   let simile = false;
   let lastPlain: Bar | undefined;
   let tempoMark: { quarters: number; unitQuarters: number; perMinute: number; bar: string } | null = null;
@@ -177,7 +178,6 @@ export function importMusicXml(root: XNode, opts: ImportOptions = {}): ImportRes
     if (m.simileStart) simile = true;
     if (m.simileStop) simile = false;
     if (m.endingStart !== undefined) ending = m.endingStart;
-    if (m.endingNumbers) skipped.add(`endings for several passes ("${m.endingNumbers.join(", ")}") read as ending ${m.endingStart}`, m.number);
     const cmap = cm ? mapOf(cm) : map;
     const toSymbol = (h: Harmony, bar: string) => {
       const concertH: Harmony = { ...h, root: cmap.root(h.root), bass: h.bass ? cmap.root(h.bass) ?? undefined : undefined };
@@ -188,7 +188,7 @@ export function importMusicXml(root: XNode, opts: ImportOptions = {}): ImportRes
     // a short first measure is a pickup when the file says so (implicit) or the full bars follow it
     const pickup = i === 0 && m.length > 0 && m.length < fullQuarters - 1e-6 && (m.implicit || melodyPart.measures.length > 1) ? round(m.length / quarterPerBeat) : undefined;
     const slots = cm ? chordSlots(cm, pickup ?? barBeats, quarterPerBeat, toSymbol, skipped) : [];
-    const bar: Bar = { chords: slots.slice(0, 16), simile, repeatStart: m.repeatStart, repeatEnd: m.repeatEnd, ending };
+    const bar: Bar = { chords: slots.slice(0, 16), simile, repeatStart: m.repeatStart, repeatEnd: m.repeatEnd, ...endingFields(ending) };
     if (slots.length > 16) skipped.add("chord symbols beyond 16 in one bar", m.number, slots.length - 16);
     if (m.repeatTimes) bar.repeatTimes = m.repeatTimes;
     if (hasPitches && m.notes.length) bar.melody = melodyOf(m, map.pitch, skipped);

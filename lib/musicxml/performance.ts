@@ -8,6 +8,7 @@ import { exportBars, type ExportBar, type ExportOptions } from "./export";
 function barOf(pb: PerformanceBar): Bar {
   const bar: Bar = { chords: pb.chords, simile: pb.simile, repeatStart: pb.repeatStart, repeatEnd: pb.repeatEnd, ending: pb.ending };
   if (pb.repeatTimes !== undefined) bar.repeatTimes = pb.repeatTimes;
+  if (pb.endingPasses) bar.endingPasses = pb.endingPasses;
   if (pb.melody) bar.melody = pb.melody;
   if (pb.pickup !== undefined) bar.pickup = pb.pickup;
   return bar;

@@ -1,5 +1,6 @@
 // Walks the measures of one <part>: positions in quarter notes from <divisions>, <backup> and
 // <forward>; harmonies, the first voice's notes, barlines, rehearsal marks and tempo.
+import { parseEndingPasses } from "@/lib/chart/endings";
 import type { Harmony } from "./kinds";
 import { readHarmony } from "./harmony-read";
 import { isStep, type Pitch, type Transposition } from "./pitch";
@@ -38,9 +39,8 @@ export interface RawMeasure {
   repeatStart: boolean;
   repeatEnd: boolean;
   repeatTimes?: number;
-  endingStart?: number;
-  /** All the passes an ending names ("1, 2" → [1, 2]). */
-  endingNumbers?: number[];
+  /** The passes an ending starting here is played on ("1, 2" → [1, 2]), each 1–8. */
+  endingStart?: number[];
   endingStop: boolean;
   simileStart: boolean;
   simileStop: boolean;
@@ -49,6 +49,17 @@ export interface RawMeasure {
 // Layout and linking only: nothing a player reads.
 const IGNORED_MEASURE_CHILDREN = new Set(["print", "bookmark", "link", "grouping", "listening"]);
 const BEAT_UNIT_QUARTERS: Record<string, number> = { breve: 8, whole: 4, half: 2, quarter: 1, eighth: 0.5, "16th": 0.25, "32nd": 0.125, long: 16 };
+
+/**
+ * The passes an `<ending number="…">` names (MusicXML 4.0 ending-number: "1", "1, 2", "1,3"); a chart
+ * ending is for passes 1–8, so a higher pass or an unreadable number is reported, not guessed silently.
+ */
+function readEndingNumber(text: string, bar: string, skipped: Skipped): number[] {
+  const named = text.split(/[\s,]+/).filter(Boolean).map(Number);
+  const passes = parseEndingPasses(named.filter((n) => Number.isInteger(n) && n >= 1 && n <= 8).join(",")) ?? [];
+  if (passes.length < named.length) skipped.add(`ending numbers beyond 8 or unreadable ("${text}"), read as ${passes.length ? passes.join(", ") : "ending 1"}`, bar);
+  return passes.length ? passes : [1];
+}
 
 function readTransposeEl(el: XNode | undefined): Transposition | null {
   if (!el) return null;
@@ -116,11 +127,8 @@ function readBarline(el: XNode, w: Walk, last: boolean): void {
   }
   const ending = child(el, "ending");
   if (ending) {
-    const numbers = (ending.attrs.number ?? "1").split(/[ ,]+/).map(Number).filter((n) => Number.isInteger(n) && n >= 1);
-    if (ending.attrs.type === "start") {
-      rm.endingStart = Math.min(8, numbers[0] ?? 1);
-      if (numbers.length > 1) rm.endingNumbers = numbers;
-    } else rm.endingStop = true;
+    if (ending.attrs.type === "start") rm.endingStart = readEndingNumber(ending.attrs.number ?? "1", rm.number, skipped);
+    else rm.endingStop = true;
   }
   const style = textOf(el, "bar-style")?.trim();
   const explained = !style || style === "regular" || (rep && /heavy/.test(style)) || (last && style === "light-heavy");

@@ -1,6 +1,7 @@
 // Performance bars → systems → pages for one screen or sheet. Pure and deterministic: the same
 // arrangement and options give the same pages, so every device in the band reads the same turns.
 import type { Arrangement, PerformanceBar } from "@/lib/chart/model";
+import { endingLabel, sameEnding } from "@/lib/chart/endings";
 import type { ChartLayout, Clef, LayoutOptions, Page, PlacedBar, System } from "./types";
 import { minBarWidth, placeChords } from "./bars";
 import { keyAccidentalCount } from "./keys";
@@ -99,10 +100,10 @@ function placeLine(line: Line, lineIndex: number, ctx: LineContext): PlacedBar[]
     const label = bar.section ?? (bar.index === ctx.firstIntroIndex ? "Intro" : null);
     const prev = line.bars[i - 1];
     const next = line.bars[i + 1];
-    const endingStart = bar.ending !== null && (!prev || prev.ending !== bar.ending);
+    const endingStart = bar.ending !== null && !sameEnding(prev, bar);
     let chordX = ctx.compact && label ? Math.max(noteX, x + labelBoxWidth(label) + 6) : noteX;
     // The ending number sits at the bracket's start (after a label box); the first symbol starts past it.
-    if (endingStart && bar.ending !== null) chordX = Math.max(chordX, endingX(x, first ? opening : 0, label) + endingLabelRoom(bar.ending));
+    if (endingStart && bar.ending !== null) chordX = Math.max(chordX, endingX(x, first ? opening : 0, label) + endingLabelRoom(endingLabel(bar)));
     const chordWidth = Math.max(1, x + width - BAR_PAD_END - chordX);
     const { boxes } = placeChords(bar, ctx.beats, ctx.fontSize, chordX, chordWidth);
     const placed: PlacedBar = {
@@ -118,7 +119,7 @@ function placeLine(line: Line, lineIndex: number, ctx: LineContext): PlacedBar[]
       chords: boxes,
       endingStart,
       endingX: endingX(x, first ? opening : 0, label),
-      endingEnd: bar.ending !== null && (!next || next.ending !== bar.ending),
+      endingEnd: bar.ending !== null && !sameEnding(next, bar),
     };
     x += width;
     return placed;

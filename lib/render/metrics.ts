@@ -17,10 +17,10 @@ export const LABEL_FONT_SIZE = 15;
 export function labelBoxWidth(label: string, size = LABEL_FONT_SIZE): number {
   return Math.ceil(textWidth(label, size) * 0.9) + 12;
 }
-/** The ending number ("1.") at the bracket's start: its size, and the room it takes from the bracket's left end. */
+/** The ending's label ("1.", "1, 2.") at the bracket's start: its size, and the room it takes from the bracket's left end. */
 export const ENDING_LABEL_SIZE = 14;
-export function endingLabelRoom(ending: number): number {
-  return 5 + Math.ceil(textWidth(`${ending}.`, ENDING_LABEL_SIZE)) + 6;
+export function endingLabelRoom(label: string): number {
+  return 5 + Math.ceil(textWidth(label, ENDING_LABEL_SIZE)) + 6;
 }
 /** Superscript size relative to the chord font. */
 export const SUPERSCRIPT_SCALE = 0.62;

@@ -1,55 +1,19 @@
 // How long a tune and a set run: bars as played × beats per bar × 60 / tempo. Pure.
 // A tune is played as: intro, head in, each soloist's choruses over the form, head out, ending.
 // With no solo order the head is played once (a ballad or a feature straight through).
+import { playingOrder } from "@/lib/chart/form";
 import { generateIntro } from "@/lib/chart/intro";
 import type { Bar, Chart, IntroChoice } from "@/lib/chart/model";
 import type { EndingChoice, SetlistEntry } from "./model";
 
-/**
- * How many bars are played going through `bars` once, repeats taken: `:|` jumps back to the last `|:`
- * (or the start) until its times are used up (2 unless `:|x3`), and an ending bar is played only on
- * its own pass.
- */
-export function barsAsPlayed(bars: readonly Bar[]): number {
-  let played = 0;
-  let start = 0;
-  let pass = 1;
-  let endingPass = 1;
-  let jumped = false;
-  let i = 0;
-  // Each bar is visited at most 16 times (the most a repeat can be taken); the guard keeps a bad chart finite.
-  for (let guard = 0; i < bars.length && guard < bars.length * 17; guard++) {
-    const b = bars[i]!;
-    if (b.repeatStart && !jumped) {
-      start = i;
-      pass = 1;
-      endingPass = 1;
-    }
-    jumped = false;
-    if (b.ending !== null && b.ending !== undefined && b.ending !== endingPass) {
-      i++;
-      continue;
-    }
-    played++;
-    if (b.repeatEnd) {
-      if (pass < (b.repeatTimes ?? 2)) {
-        pass++;
-        endingPass = pass;
-        i = start;
-        jumped = true;
-        continue;
-      }
-      pass = 1;
-      start = i + 1;
-    }
-    i++;
-  }
-  return played;
+/** How many bars are played going through `bars` once, repeats and endings taken (see `playingOrder`). */
+export function barsPlayedCount(bars: readonly Bar[]): number {
+  return playingOrder(bars).length;
 }
 
 /** The form once through as played (the chart's sections, not its composed intro). */
 export function formBarsAsPlayed(chart: Chart): number {
-  return barsAsPlayed(chart.sections.flatMap((s) => s.bars));
+  return barsPlayedCount(chart.sections.flatMap((s) => s.bars));
 }
 
 /** Names in a solo order ("tenor, piano, bass" → 3); "and", "&", "/" and ";" also separate. */
@@ -63,9 +27,9 @@ export function soloistCount(soloOrder: string): number {
 /** Intro bars as played: the chosen intro, else the chart's composed intro, none when the entry goes straight in. */
 export function introBarsAsPlayed(chart: Chart, intro: IntroChoice | null, straightIn = false): number {
   if (straightIn) return 0;
-  if (!intro) return chart.intro ? barsAsPlayed(chart.intro.bars) : 0;
+  if (!intro) return chart.intro ? barsPlayedCount(chart.intro.bars) : 0;
   try {
-    return barsAsPlayed(generateIntro(chart, intro).bars);
+    return barsPlayedCount(generateIntro(chart, intro).bars);
   } catch {
     return 0;
   }

@@ -70,7 +70,7 @@ const section = (meter: Meter, label: fc.Arbitrary<string>) =>
     .record({
       label,
       body: fc.array(bar(meter, { simileOk: true }), { minLength: 1, maxLength: 9 }),
-      repeat: fc.constantFrom("none", "plain", "times", "endings"),
+      repeat: fc.constantFrom("none", "plain", "times", "endings", "shared-ending"),
       times: fc.integer({ min: 3, max: 6 }),
       first: fc.array(bar(meter, { simileOk: true }), { minLength: 1, maxLength: 3 }),
       second: fc.array(bar(meter, { simileOk: true }), { minLength: 1, maxLength: 3 }),
@@ -87,6 +87,11 @@ const section = (meter: Meter, label: fc.Arbitrary<string>) =>
       if (repeat === "endings") {
         first.forEach((b, i) => bars.push({ ...b, ending: 1, repeatEnd: i === first.length - 1 }));
         second.forEach((b) => bars.push({ ...b, ending: 2 }));
+      }
+      if (repeat === "shared-ending") {
+        // three times through: one ending for passes 1 and 2, another for pass 3
+        first.forEach((b, i) => bars.push({ ...b, ending: 1, endingPasses: [1, 2], repeatEnd: i === first.length - 1, ...(i === first.length - 1 ? { repeatTimes: 3 } : {}) }));
+        second.forEach((b) => bars.push({ ...b, ending: 3 }));
       }
       return { label: l, bars };
     });

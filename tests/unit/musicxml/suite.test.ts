@@ -2,7 +2,9 @@
 // each expectation written out by hand from the file named in the test.
 import { describe, expect, it } from "vitest";
 import { parseChartText, serializeChart } from "@/lib/chart";
-import { importScoreFile, MusicXmlError } from "@/lib/musicxml";
+import { playingOrder } from "@/lib/chart/form";
+import { exportMusicXml, importScoreFile, MusicXmlError } from "@/lib/musicxml";
+import { invalid, validateAll } from "./xmllint";
 import { fixture, suite } from "./helpers";
 
 const read = (name: string) => importScoreFile(suite(name), { fitChartText: true });
@@ -137,9 +139,33 @@ describe("nothing read is dropped silently", () => {
     expect(importScoreFile(encode(xml)).report.skipped.join("\n")).toMatch(/changes of mode only .* — bar 2/);
   });
 
-  it("an ending numbered \"1, 2\" is reported as read for its first pass", () => {
-    const xml = new TextDecoder().decode(suite("45b-RepeatWithAlternatives.xml")).replace('<ending number="1" type="start"', '<ending number="1, 2" type="start"');
-    expect(importScoreFile(encode(xml)).report.skipped.join("\n")).toMatch(/endings for several passes \("1, 2"\) read as ending 1 \(1\) — bar 2/);
+  it("45b-RepeatWithAlternatives.xml with its 1st ending numbered \"1, 2\" and the 2nd \"3\": one ending for passes 1 and 2", () => {
+    // MusicXML 4.0, <ending>: "Single endings such as "1" or comma-separated multiple endings such as "1,2" may be used";
+    // the repeat is made three times through (<repeat times="3">) so the ending numbered 3 is reached.
+    const xml = new TextDecoder()
+      .decode(suite("45b-RepeatWithAlternatives.xml"))
+      .replace(/<ending number="1" type="(start|stop)"/g, '<ending number="1, 2" type="$1"')
+      .replace(/<ending number="2" type="(start|discontinue)"/g, '<ending number="3" type="$1"')
+      .replace('<repeat direction="backward"/>', '<repeat direction="backward" times="3"/>');
+    const { chart, report } = importScoreFile(encode(xml));
+    const bars = chart.sections.flatMap((s) => s.bars);
+    expect(bars.map((b) => b.ending)).toEqual([null, 1, 3, null]);
+    expect(bars[1]!.endingPasses).toEqual([1, 2]);
+    expect(bars[2]!.endingPasses).toBeUndefined();
+    expect(report.skipped.join("\n")).not.toMatch(/ending/);
+    // played: bar 1, ending bar (pass 1), bar 1, ending bar (pass 2), bar 1, 3rd ending, bar 4
+    expect(playingOrder(bars)).toEqual([0, 1, 0, 1, 0, 2, 3]);
+    // and back out: the export names both passes, and the round trip keeps them
+    const out = exportMusicXml(chart);
+    expect(invalid(validateAll({ "45b-1-2.musicxml": out }))).toEqual({});
+    expect(out).toContain('<ending number="1, 2" type="start"/>');
+    expect(out).toContain('<ending number="1, 2" type="stop"/>');
+    expect(importScoreFile(encode(out)).chart.sections.flatMap((s) => s.bars).map((b) => b.endingPasses ?? b.ending)).toEqual([null, [1, 2], 3, null]);
+  });
+
+  it("an ending number past 8 is reported with its bar", () => {
+    const xml = new TextDecoder().decode(suite("45b-RepeatWithAlternatives.xml")).replace(/<ending number="2" type="(start|discontinue)"/g, '<ending number="2, 9" type="$1"');
+    expect(importScoreFile(encode(xml)).report.skipped.join("\n")).toMatch(/ending numbers beyond 8 or unreadable \("2, 9"\), read as 2 \(1\) — bar 3/);
   });
 });
 

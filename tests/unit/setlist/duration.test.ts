@@ -4,7 +4,7 @@
 import { describe, expect, it } from "vitest";
 import { ChartSchema, type Bar, type Chart } from "@/lib/chart/model";
 import {
-  barsAsPlayed, formatTuneLength, SetlistEntrySchema, setLengthInWords, setTiming, soloistCount, tuneTiming,
+  barsPlayedCount, formatTuneLength, SetlistEntrySchema, setLengthInWords, setTiming, soloistCount, tuneTiming,
   type SetlistEntry,
 } from "@/lib/setlist";
 import { bar, harbourChart, kettleChart } from "./fixture";
@@ -37,7 +37,7 @@ function entryOf(patch: Partial<SetlistEntry> = {}): SetlistEntry {
 
 describe("bars as played", () => {
   it("takes a repeat: 8 bars inside |: :| then 16 more are 32 bars", () => {
-    expect(barsAsPlayed(repeatedChart(160).sections.flatMap((s) => s.bars))).toBe(32);
+    expect(barsPlayedCount(repeatedChart(160).sections.flatMap((s) => s.bars))).toBe(32);
   });
 
   it("plays the 1st ending the first time and the 2nd ending the second: |: 6 [1 2 :| [2 2 | = 6+2+6+2 = 16", () => {
@@ -47,13 +47,13 @@ describe("bars as played", () => {
     bars[7] = marked(bars[7]!, { ending: 1, repeatEnd: true });
     bars[8] = marked(bars[8]!, { ending: 2 });
     bars[9] = marked(bars[9]!, { ending: 2 });
-    expect(barsAsPlayed(bars)).toBe(16);
+    expect(barsPlayedCount(bars)).toBe(16);
   });
 
   it("takes :|x3 three times through: 4 bars → 12", () => {
     const bars = Array.from({ length: 4 }, () => bar("F7"));
     bars[3] = marked(bars[3]!, { repeatEnd: true, repeatTimes: 3 });
-    expect(barsAsPlayed(bars)).toBe(12);
+    expect(barsPlayedCount(bars)).toBe(12);
   });
 });
 
