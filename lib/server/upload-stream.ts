@@ -73,6 +73,7 @@ export async function receiveFile<T>(request: Request, opts: ReceiveOptions, con
   return new Promise<T>((resolve, reject) => {
     let settled = false;
     let started = false;
+    let current: Readable | null = null;
     const finish = (err: unknown, value?: T) => {
       if (settled) return;
       settled = true;
@@ -87,10 +88,13 @@ export async function receiveFile<T>(request: Request, opts: ReceiveOptions, con
         return;
       }
       started = true;
+      current = stream;
+      // Past the limit: stop reading the request at once; the consumer fails with the 413 once it
+      // has cleaned up what it wrote (so nothing of the file is left when the refusal is answered).
       stream.once("limit", () => {
-        const err = tooBigError(opts);
-        stream.destroy(err);
-        finish(err);
+        source.unpipe(parser);
+        source.destroy();
+        stream.destroy(tooBigError(opts));
       });
       consume({ name: (info.filename || "upload").slice(0, 200), chunks: stream }).then(
         (value) => finish(null, value),
@@ -101,7 +105,11 @@ export async function receiveFile<T>(request: Request, opts: ReceiveOptions, con
     parser.on("close", () => {
       if (!started) finish(noFile());
     });
-    source.on("error", (err) => finish(err instanceof AppError ? err : notAForm()));
+    source.on("error", (err) => {
+      const failure = err instanceof AppError ? err : notAForm();
+      if (current) current.destroy(failure); // the consumer cleans up, then answers with it
+      else finish(failure);
+    });
     source.pipe(parser);
   });
 }
