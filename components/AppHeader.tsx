@@ -26,6 +26,7 @@ function navFor(bandId: string, isLeader: boolean, canEdit = isLeader): NavItem[
   if (isLeader) items.push({ href: `${base}/members`, label: "Members", testId: "nav-members" });
   if (isLeader) items.push({ href: `${base}/plan`, label: "Plan", testId: "nav-plan" });
   items.push({ href: "/settings", label: "Settings", testId: "nav-settings" });
+  items.push({ href: "/account", label: "Account", testId: "nav-account" });
   return items;
 }
 

@@ -131,7 +131,7 @@ export function GigScreen() {
           onFirstSave={() => router.replace(here)}
         />
       ) : (
-        <ReadOnlySets entries={entries} tunes={tunes} openHref={openHref} setMinutes={setlist.setMinutes ?? []} />
+        <ReadOnlySets entries={entries} tunes={tunes} openHref={openHref} setMinutes={setlist.setMinutes ?? []} part={part} />
       )}
 
       {can(membership?.role, "shareWithSubs") ? (
@@ -147,7 +147,7 @@ export function GigScreen() {
   );
 }
 
-function ReadOnlySets({ entries, tunes, openHref, setMinutes }: { entries: SetlistEntry[]; tunes: Map<string, TuneInfo>; openHref: (e: SetlistEntry) => string; setMinutes: (number | null)[] }) {
+function ReadOnlySets({ entries, tunes, openHref, setMinutes, part }: { entries: SetlistEntry[]; tunes: Map<string, TuneInfo>; openHref: (e: SetlistEntry) => string; setMinutes: (number | null)[]; part: string }) {
   const sets = groupBySet(entries);
   if (sets.length === 0) return <Notice title="No tunes yet">The leader has not put any tunes on this set list yet.</Notice>;
   const noop = () => undefined;
@@ -157,7 +157,7 @@ function ReadOnlySets({ entries, tunes, openHref, setMinutes }: { entries: Setli
         <section key={s.setNumber} aria-labelledby={`set-${s.setNumber}`} className="rounded-lg border border-ink-soft bg-paper-dim p-4" data-testid={`set-${s.setNumber}`}>
           <h2 id={`set-${s.setNumber}`} className="mb-3 text-xl font-bold">Set {s.setNumber}</h2>
           <SetLength setNumber={s.setNumber} entries={s.entries} tunes={tunes} target={setMinutes[s.setNumber - 1] ?? null} />
-          <SetTunes setNumber={s.setNumber} setCount={sets.length} entries={s.entries} tunes={tunes} editable={false} openHref={openHref} onReorder={noop} onChange={noop} onRemove={noop} onMoveToSet={noop} />
+          <SetTunes setNumber={s.setNumber} setCount={sets.length} entries={s.entries} tunes={tunes} editable={false} openHref={openHref} part={part} onReorder={noop} onChange={noop} onRemove={noop} onMoveToSet={noop} />
         </section>
       ))}
     </div>
