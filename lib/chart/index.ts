@@ -2,6 +2,7 @@
 export * from "./model";
 export { parseChartText, assertChartTextSize, METADATA_FIELDS, MAX_CHART_TEXT_CHARS, MAX_CHART_TEXT_LINES } from "./text-parse";
 export { ChartTextError } from "./text-error";
+export { joinChartText, meterOfText, missingHeaderLines, type ChartFields } from "./join";
 export { serializeChart, BARS_PER_LINE } from "./text-serialize";
 export { readMelodyNote, formatMelodyNote, noteQuarters, barQuarters } from "./melody";
 export { analyseTop, barsAsPlayed, firstChord, formAsPlayed, lastPassBars, secondsFor, type TopAnalysis } from "./as-played";

@@ -2,8 +2,8 @@
 // Writes from the pages. Online they go straight to the REST routes and the answer lands in the
 // local book; with no signal (or no answer) the edit is written locally and queued in the outbox,
 // and the next sync sends it. The same checks run here first, so a bad chart text is caught offline too.
-import { ChartTextError, parseChartText } from "@/lib/chart";
-import { ChartSchema, type Chart } from "@/lib/chart/model";
+import { ChartTextError, joinChartText } from "@/lib/chart";
+import type { Chart } from "@/lib/chart/model";
 import { ChartCreateSchema, ChartUpdateSchema, type ChartCreate, type ChartDto, type ChartUpdate } from "@/lib/validation/chart-input";
 import { putServerChart } from "./apply";
 import { deleteChartLocally, getLocalBook, type LocalBook } from "./db";
@@ -39,18 +39,10 @@ function fromDto(d: ChartDto): WireChart {
   };
 }
 
-function meterOf(meter: string): Chart["meter"] {
-  const [beats, unit] = meter.split("/").map(Number);
-  return { beats: beats ?? 4, unit: (unit === 2 || unit === 8 ? unit : 4) as 2 | 4 | 8 };
-}
-
 /** The chart model for the local copy, the form's metadata winning over the text's header (as on the server). */
 function localBody(input: ChartCreate | ChartUpdate): Chart | FieldProblem[] {
   try {
-    const parsed = parseChartText(input.sourceText);
-    return ChartSchema.parse({
-      ...parsed, title: input.title, composer: input.composer, key: input.key, meter: meterOf(input.meter), tempo: input.tempo, feel: input.feel,
-    });
+    return joinChartText(input, input.sourceText);
   } catch (err) {
     if (err instanceof ChartTextError) return [{ field: "sourceText", message: err.message, line: err.line, column: err.column }];
     return [{ field: "sourceText", message: "The chart text could not be read." }];
