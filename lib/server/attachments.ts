@@ -6,7 +6,7 @@ import type { WireAttachment } from "@/lib/offline/protocol";
 // an "attachment" change so devices fetch it for offline use.
 import type { Kysely } from "kysely";
 import type { AttachmentRow, Database } from "@/db/schema";
-import { requireMember, type Actor } from "./access";
+import { requireMember, type Actor, signedIn } from "./access";
 import { recordChange } from "./changes";
 import { AppError } from "./errors";
 import { readUpload, type Upload } from "./imports";
@@ -71,7 +71,7 @@ export async function uploadAttachment(db: Kysely<Database>, actor: Actor | null
     size: stored.size,
     type,
     pages: type === "application/pdf" ? pdfPages(file.bytes) : 1,
-    uploaded_by: (actor as Actor).userId,
+    uploaded_by: signedIn(actor).userId,
     created_at: nowIso(),
     deleted_at: null,
   };

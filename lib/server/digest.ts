@@ -6,7 +6,7 @@ import type { Kysely } from "kysely";
 import type { Database, Role } from "@/db/schema";
 import { sendMail } from "@/lib/mail";
 import { chartsUpdatedMail, type DigestChart } from "@/lib/mail/templates";
-import { requireMember, type Actor } from "./access";
+import { requireMember, type Actor, signedIn } from "./access";
 import { AppError } from "./errors";
 import { sharedChartIds } from "./shares";
 import { appUrl, nowIso } from "./tokens";
@@ -124,7 +124,7 @@ export async function sendChartsUpdatedDigest(
   now = new Date(),
 ): Promise<DigestResult> {
   await requireMember(db, actor, bandId, "editCharts");
-  const me = actor as Actor;
+  const me = signedIn(actor);
   const snap = await takeSnapshot(db, bandId, now);
   if (snap.entries.length === 0) return { sent: 0, charts: 0 };
   if (!(await moveCursor(db, bandId, snap.lastSeq, snap.maxSeq, me.userId, now))) return { sent: 0, charts: 0 };

@@ -5,7 +5,7 @@ import type { Kysely } from "kysely";
 import type { Database, Invite, Role } from "@/db/schema";
 import { inviteMail, sendMail } from "@/lib/mail";
 import { InviteCreateSchema } from "@/lib/validation/band";
-import { requireMember, type Actor } from "./access";
+import { requireMember, type Actor, signedIn } from "./access";
 import { assertPlanAllows } from "./billing";
 import { recordChange } from "./changes";
 import { AppError } from "./errors";
@@ -62,7 +62,7 @@ export async function inviteMember(
   now = new Date(),
 ): Promise<{ invite: InviteDto; link: string; mailed: boolean }> {
   await requireMember(db, actor, bandId, "manageMembers");
-  const me = actor as Actor;
+  const me = signedIn(actor);
   const data = parseInput(InviteCreateSchema, input);
   if (data.accessExpiresAt && data.role !== "sub") {
     throw new AppError("unprocessable", "Only a sub's access can have an end date.", {

@@ -12,7 +12,7 @@ import {
   type Setlist,
   type SetlistEntry,
 } from "@/lib/setlist";
-import { requireMember, type Actor } from "./access";
+import { requireMember, type Actor, signedIn } from "./access";
 import { recordChange } from "./changes";
 import { AppError, notFound, type FieldIssue } from "./errors";
 import { parseInput } from "./input";
@@ -215,7 +215,7 @@ export async function saveSetlistUnchecked(
 export async function createSetlist(db: Kysely<Database>, actor: Actor | null, bandId: string, input: unknown, now = new Date()): Promise<Setlist> {
   await requireMember(db, actor, bandId, "editSetlists");
   const data = parseInput(SetlistCreateSchema, input);
-  return saveSetlistUnchecked(db, (actor as Actor).userId, bandId, data.id ?? newId(), data, null, now);
+  return saveSetlistUnchecked(db, signedIn(actor).userId, bandId, data.id ?? newId(), data, null, now);
 }
 
 export async function updateSetlist(
@@ -228,7 +228,7 @@ export async function updateSetlist(
 ): Promise<Setlist> {
   await requireMember(db, actor, bandId, "editSetlists");
   const data = parseInput(SetlistUpdateSchema, input);
-  return saveSetlistUnchecked(db, (actor as Actor).userId, bandId, setlistId, data, data.baseRevision, now);
+  return saveSetlistUnchecked(db, signedIn(actor).userId, bandId, setlistId, data, data.baseRevision, now);
 }
 
 export async function deleteSetlistUnchecked(db: Kysely<Database>, actorId: string, bandId: string, setlistId: string, now = new Date()): Promise<void> {
@@ -249,7 +249,7 @@ export async function deleteSetlistUnchecked(db: Kysely<Database>, actorId: stri
 
 export async function deleteSetlist(db: Kysely<Database>, actor: Actor | null, bandId: string, setlistId: string, now = new Date()): Promise<void> {
   await requireMember(db, actor, bandId, "editSetlists");
-  await deleteSetlistUnchecked(db, (actor as Actor).userId, bandId, setlistId, now);
+  await deleteSetlistUnchecked(db, signedIn(actor).userId, bandId, setlistId, now);
 }
 
 /** A copy for the next gig: same sets, tunes and arrangements, new name/date/venue if given. Shares are not copied. */
@@ -268,7 +268,7 @@ export async function duplicateSetlist(
   const src = found.setlist;
   return saveSetlistUnchecked(
     db,
-    (actor as Actor).userId,
+    signedIn(actor).userId,
     bandId,
     opts.id ?? newId(),
     {

@@ -2,7 +2,7 @@ import { ready } from "@/db";
 import { AppError } from "@/lib/server/errors";
 import { route } from "@/lib/server/handler";
 import { previewShare } from "@/lib/server/shares";
-import { TokenParams } from "@/lib/validation/band";
+import { TokenParams } from "@/lib/validation/params";
 
 // Knowing the token is the permission to see which gig it is for.
 export const GET = route({ params: TokenParams, anonymous: true }, async ({ params }) => {

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { ready } from "@/db";
 import { archiveChart, listArchivedCharts } from "@/lib/server/chart-archive";
 import { route } from "@/lib/server/handler";
-import { BandParams } from "@/lib/validation/band";
+import { BandParams } from "@/lib/validation/params";
 import { IdSchema } from "@/lib/validation/common";
 
 // The band's archived charts (leaders and arrangers), and putting one away.

@@ -4,7 +4,7 @@ import { ready } from "@/db";
 import { createChart, listCharts } from "@/lib/server/charts";
 import { route } from "@/lib/server/handler";
 import { CHART_BODY_BYTES } from "@/lib/server/request-guard";
-import { BandParams } from "@/lib/validation/band";
+import { BandParams } from "@/lib/validation/params";
 import { ChartCreateSchema } from "@/lib/validation/chart-input";
 
 const ListQuery = z.object({ includeDeleted: z.enum(["0", "1", "true", "false"]).optional() }).strict();

@@ -2,7 +2,8 @@ import { NextResponse } from "next/server";
 import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
 import { inviteMember, listInvites } from "@/lib/server/members";
-import { BandParams, InviteCreateSchema } from "@/lib/validation/band";
+import { InviteCreateSchema } from "@/lib/validation/band";
+import { BandParams } from "@/lib/validation/params";
 
 export const GET = route({ params: BandParams }, async ({ actor, params }) => ({
   invites: await listInvites(await ready(), actor, params.bandId),

@@ -4,7 +4,8 @@ import { findMembership } from "@/lib/server/access";
 import { route } from "@/lib/server/handler";
 import { inviteMember, listInvites, listMembers } from "@/lib/server/members";
 import { CAN } from "@/lib/server/roles";
-import { BandParams, InviteCreateSchema } from "@/lib/validation/band";
+import { InviteCreateSchema } from "@/lib/validation/band";
+import { BandParams } from "@/lib/validation/params";
 
 export const GET = route({ params: BandParams }, async ({ actor, params }) => {
   const db = await ready();

@@ -4,7 +4,7 @@ import { announce } from "@/lib/server/push-announce";
 import { SETLIST_BODY_BYTES } from "@/lib/server/request-guard";
 import { createSetlist, listSetlists } from "@/lib/server/setlists";
 import { SetlistCreateSchema } from "@/lib/setlist";
-import { BandParams } from "@/lib/validation/band";
+import { BandParams } from "@/lib/validation/params";
 
 export const GET = route({ params: BandParams }, async ({ actor, params }) => ({
   setlists: await listSetlists(await ready(), actor, params.bandId),

@@ -1,7 +1,7 @@
 import { ready } from "@/db";
 import { bringBackChart, deleteArchivedChart } from "@/lib/server/chart-archive";
 import { route } from "@/lib/server/handler";
-import { ChartParams } from "@/lib/validation/band";
+import { ChartParams } from "@/lib/validation/params";
 
 // POST brings an archived chart back into the book; DELETE deletes it for good.
 export const POST = route({ params: ChartParams }, async ({ actor, params }) => ({

@@ -4,7 +4,7 @@ import { deleteChart, getChart, updateChart } from "@/lib/server/charts";
 import { route } from "@/lib/server/handler";
 import { announce } from "@/lib/server/push-announce";
 import { CHART_BODY_BYTES } from "@/lib/server/request-guard";
-import { ChartParams } from "@/lib/validation/band";
+import { ChartParams } from "@/lib/validation/params";
 import { ChartUpdateSchema } from "@/lib/validation/chart-input";
 
 export const GET = route({ params: ChartParams }, async ({ actor, params }) => ({

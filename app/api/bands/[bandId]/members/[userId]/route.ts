@@ -1,7 +1,8 @@
 import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
 import { removeMember, updateMember } from "@/lib/server/members";
-import { MemberParams, MemberUpdateSchema } from "@/lib/validation/band";
+import { MemberUpdateSchema } from "@/lib/validation/band";
+import { MemberParams } from "@/lib/validation/params";
 
 export const PATCH = route({ params: MemberParams, body: MemberUpdateSchema }, async ({ actor, params, body }) => ({
   member: await updateMember(await ready(), actor, params.bandId, params.userId, body),

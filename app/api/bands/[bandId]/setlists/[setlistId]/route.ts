@@ -4,7 +4,7 @@ import { announce } from "@/lib/server/push-announce";
 import { SETLIST_BODY_BYTES } from "@/lib/server/request-guard";
 import { deleteSetlist, getSetlist, updateSetlist } from "@/lib/server/setlists";
 import { SetlistUpdateSchema } from "@/lib/setlist";
-import { SetlistParams } from "../params";
+import { SetlistParams } from "@/lib/validation/params";
 
 export const GET = route({ params: SetlistParams }, async ({ actor, params }) => ({
   setlist: await getSetlist(await ready(), actor, params.bandId, params.setlistId),

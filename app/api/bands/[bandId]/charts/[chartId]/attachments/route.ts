@@ -3,7 +3,7 @@ import { ready } from "@/db";
 import { listAttachments, uploadAttachmentRequest } from "@/lib/server/attachments";
 import { route } from "@/lib/server/handler";
 import { announce } from "@/lib/server/push-announce";
-import { ChartParams } from "@/lib/validation/band";
+import { ChartParams } from "@/lib/validation/params";
 
 export const GET = route({ params: ChartParams }, async ({ actor, params }) => ({
   attachments: await listAttachments(await ready(), actor, params.bandId, params.chartId),

@@ -3,7 +3,7 @@ import { ready } from "@/db";
 import { INSTRUMENT_IDS } from "@/lib/music";
 import { route } from "@/lib/server/handler";
 import { exportChartMusicXml } from "@/lib/server/musicxml-export";
-import { ChartParams } from "@/lib/validation/band";
+import { ChartParams } from "@/lib/validation/params";
 
 // setlist + entry: tonight's arrangement of the chart on that set list (both or neither)
 const Query = z

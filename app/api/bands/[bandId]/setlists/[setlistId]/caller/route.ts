@@ -2,7 +2,7 @@
 import { ready } from "@/db";
 import { CallerSchema, setCaller } from "@/lib/server/calls";
 import { route } from "@/lib/server/handler";
-import { SetlistParams } from "../../params";
+import { SetlistParams } from "@/lib/validation/params";
 
 export const dynamic = "force-dynamic";
 

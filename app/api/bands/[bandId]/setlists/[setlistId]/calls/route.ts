@@ -2,7 +2,7 @@
 import { ready } from "@/db";
 import { CallSchema, callTune, gigCallState } from "@/lib/server/calls";
 import { route } from "@/lib/server/handler";
-import { SetlistParams } from "../../params";
+import { SetlistParams } from "@/lib/validation/params";
 
 export const dynamic = "force-dynamic";
 

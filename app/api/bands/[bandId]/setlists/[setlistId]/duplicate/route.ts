@@ -2,7 +2,7 @@ import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
 import { duplicateSetlist } from "@/lib/server/setlists";
 import { SetlistDuplicateSchema } from "@/lib/setlist";
-import { SetlistParams } from "../../params";
+import { SetlistParams } from "@/lib/validation/params";
 
 export const POST = route({ params: SetlistParams, body: SetlistDuplicateSchema }, async ({ actor, params, body }) => ({
   setlist: await duplicateSetlist(await ready(), actor, params.bandId, params.setlistId, body),

@@ -2,7 +2,7 @@
 import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
 import { setlistReadiness } from "@/lib/server/readiness";
-import { SetlistParams } from "../../params";
+import { SetlistParams } from "@/lib/validation/params";
 
 export const dynamic = "force-dynamic";
 

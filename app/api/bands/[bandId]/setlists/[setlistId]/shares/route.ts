@@ -2,7 +2,7 @@ import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
 import { createShare, listShares } from "@/lib/server/shares";
 import { ShareCreateSchema } from "@/lib/setlist";
-import { SetlistParams } from "../../params";
+import { SetlistParams } from "@/lib/validation/params";
 
 export const GET = route({ params: SetlistParams }, async ({ actor, params }) => ({
   shares: await listShares(await ready(), actor, params.bandId, params.setlistId),

@@ -1,10 +1,7 @@
-import { z } from "zod";
 import { ready } from "@/db";
 import { deleteAttachment, readAttachment, safeFilename } from "@/lib/server/attachments";
 import { route } from "@/lib/server/handler";
-import { IdSchema } from "@/lib/validation/common";
-
-const Params = z.object({ bandId: IdSchema, chartId: IdSchema, attachmentId: IdSchema }).strict();
+import { AttachmentParams as Params } from "@/lib/validation/params";
 
 export const GET = route({ params: Params }, async ({ actor, params }) => {
   const part = await readAttachment(await ready(), actor, params.bandId, params.chartId, params.attachmentId);

@@ -4,7 +4,7 @@ import { ready } from "@/db";
 import { gigReader } from "@/lib/server/calls";
 import { callStream } from "@/lib/server/calls-stream";
 import { route } from "@/lib/server/handler";
-import { SetlistParams } from "../../../params";
+import { SetlistParams } from "@/lib/validation/params";
 
 export const dynamic = "force-dynamic";
 

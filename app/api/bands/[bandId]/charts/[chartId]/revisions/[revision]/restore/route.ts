@@ -2,7 +2,7 @@ import { ready } from "@/db";
 import { restoreRevision } from "@/lib/server/charts";
 import { route } from "@/lib/server/handler";
 import { announce } from "@/lib/server/push-announce";
-import { RevisionParams } from "@/lib/validation/band";
+import { RevisionParams } from "@/lib/validation/params";
 
 export const POST = route({ params: RevisionParams }, async ({ actor, params }) => {
   const db = await ready();
