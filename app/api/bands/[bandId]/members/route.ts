@@ -1,5 +1,4 @@
 import { NextResponse } from "next/server";
-import { ready } from "@/db";
 import { findMembership } from "@/lib/server/access";
 import { route } from "@/lib/server/handler";
 import { inviteMember, listInvites, listMembers } from "@/lib/server/members";
@@ -7,14 +6,13 @@ import { CAN } from "@/lib/server/roles";
 import { InviteCreateSchema } from "@/lib/validation/band";
 import { BandParams } from "@/lib/validation/params";
 
-export const GET = route({ params: BandParams }, async ({ actor, params }) => {
-  const db = await ready();
+export const GET = route({ params: BandParams }, async ({ db, actor, params }) => {
   const members = await listMembers(db, actor, params.bandId);
   const me = actor ? await findMembership(db, actor.userId, params.bandId) : null;
   const leader = me ? (CAN.manageMembers as readonly string[]).includes(me.role) : false;
   return { members, invites: leader ? await listInvites(db, actor, params.bandId) : [] };
 });
 
-export const POST = route({ params: BandParams, body: InviteCreateSchema }, async ({ actor, params, body }) =>
-  NextResponse.json(await inviteMember(await ready(), actor, params.bandId, body), { status: 201 }),
+export const POST = route({ params: BandParams, body: InviteCreateSchema }, async ({ db, actor, params, body }) =>
+  NextResponse.json(await inviteMember(db, actor, params.bandId, body), { status: 201 }),
 );
