@@ -15,6 +15,7 @@ import { cx } from "@/components/ui/cx";
 import { saveReadingSettings, useReadingSettings, type Theme } from "./settings";
 import { usePedalKeys } from "./usePedalKeys";
 import { useWakeLock } from "./useWakeLock";
+import { BarLabel } from "./BarLabel";
 import "./bandstand.css";
 
 export interface BandstandTune {
@@ -82,16 +83,6 @@ function useEscapeTo(href: string) {
 }
 
 /** A bar label: whole on a laptop, short on a phone (CSS shows one); the whole one names the button. */
-function Label({ long, short }: { long: string; short: string }) {
-  return (
-    <>
-      <span className="pp-long">{long}</span>
-      <span className="pp-short" aria-hidden="true">
-        {short}
-      </span>
-    </>
-  );
-}
 
 const stagePage = () => document.querySelector<HTMLElement>('.pp-bandstand-stage [data-testid="chart-page"]');
 const THEME_CLASS: Record<Theme, string> = { stage: "pp-theme-stage", ember: "pp-theme-ember" };
@@ -220,8 +211,8 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
         </p>
       )}
       <nav className="pp-bandstand-bar" aria-label="Bandstand controls" style={{ height: BAR_HEIGHT }}>
-        <Link href={exitHref} className="pp-bar-button" data-testid="bandstand-exit">
-          Close
+        <Link href={exitHref} className="pp-bar-button" aria-label="Close" data-testid="bandstand-exit">
+          <BarLabel long="Close" short="✕" />
         </Link>
         {tunes.length > 1 ? (
           <button
@@ -232,7 +223,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
             aria-label="Previous tune"
             data-testid="prev-tune"
           >
-            <Label long="← Tune" short="←" />
+            <BarLabel long="← Tune" short="←" />
           </button>
         ) : null}
         <span className="pp-bar-title" data-testid="tune-label">
@@ -260,7 +251,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
             aria-label="Next tune"
             data-testid="next-tune"
           >
-            <Label long="Tune →" short="→" />
+            <BarLabel long="Tune →" short="→" />
           </button>
         ) : null}
         {gigControls}
@@ -272,16 +263,16 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
           onClick={toggleEarlyTurn}
           data-testid="early-turn"
         >
-          <Label long="Early turn" short="Early" />
+          <BarLabel long="Early turn" short="⇡" />
         </button>
         <button
           type="button"
           className="pp-bar-button"
           onClick={() => setTheme(settings.theme === "stage" ? "ember" : "stage")}
-          aria-label={settings.theme === "stage" ? "Night light" : "Stage light"}
+          aria-label={settings.theme === "stage" ? "Ember light" : "Stage light"}
           data-testid="theme-toggle"
         >
-          <Label long={settings.theme === "stage" ? "Night light" : "Stage light"} short={settings.theme === "stage" ? "Night" : "Stage"} />
+          <BarLabel long={settings.theme === "stage" ? "Ember light" : "Stage light"} short={settings.theme === "stage" ? "☾" : "☀"} />
         </button>
         {!online ? (
           <span className="pp-offline" data-testid="offline-badge" role="status">

@@ -5,7 +5,9 @@ import { ENDING_LABEL_SIZE, SUPERSCRIPT_SCALE, labelBoxWidth, splitSymbol } from
 import { chordParts } from "./chord-parts";
 
 const NS = "http://www.w3.org/2000/svg";
-export const TEXT_FONT = "Academico, Georgia, serif";
+// Academico has Latin only: titles in other scripts and emoji fall through to the device's own
+// fonts for those characters (item 14: never dropped), then to any serif.
+export const TEXT_FONT = 'Academico, Georgia, "Noto Serif", "Noto Serif CJK JP", "Noto Sans CJK JP", "PingFang SC", "Hiragino Sans", "Microsoft YaHei", "Apple Color Emoji", "Segoe UI Emoji", "Noto Color Emoji", serif';
 
 interface TextStyle {
   size: number;

@@ -2,8 +2,10 @@
 // The gig controls in the bandstand bar: follow the leader's calls; for the caller, call a tune; the
 // set's tunes with a mark on those changed since this device last read them.
 import { useState } from "react";
+import { BarLabel } from "@/components/bandstand/BarLabel";
 import type { LocalMember } from "@/lib/offline/types";
 import type { GigFollow } from "./useGigFollow";
+import { can } from "@/lib/band/roles";
 
 export interface GigTune {
   title: string;
@@ -24,17 +26,17 @@ export function GigBar({ gig, tunes, at, isLeader, members }: Props) {
   return (
     <>
       {gig.canCall && at + 1 < tunes.length ? (
-        <button type="button" className="pp-bar-button" onClick={() => void gig.call(at + 1)} data-testid="call-next">
-          Call next
+        <button type="button" className="pp-bar-button" onClick={() => void gig.call(at + 1)} aria-label="Call next" data-testid="call-next">
+          <BarLabel long="Call next" short="⇥" />
         </button>
       ) : null}
       {!gig.canCall ? (
-        <button type="button" className="pp-bar-button" aria-pressed={gig.following} onClick={() => gig.setFollowing(!gig.following)} data-testid="follow-toggle">
-          {gig.following ? "Following" : "Follow"}
+        <button type="button" className="pp-bar-button" aria-pressed={gig.following} onClick={() => gig.setFollowing(!gig.following)} aria-label={gig.following ? "Following" : "Follow"} data-testid="follow-toggle">
+          <BarLabel long={gig.following ? "Following" : "Follow"} short="⇣" />
         </button>
       ) : null}
-      <button type="button" className="pp-bar-button" aria-expanded={open} aria-controls="pp-gig-tunes" onClick={() => setOpen(!open)} data-testid="tune-list-toggle">
-        Tunes
+      <button type="button" className="pp-bar-button" aria-expanded={open} aria-controls="pp-gig-tunes" onClick={() => setOpen(!open)} aria-label="Tunes" data-testid="tune-list-toggle">
+        <BarLabel long="Tunes" short="☰" />
       </button>
       {gig.error ? (
         <span role="alert" className="pp-bar-next">
@@ -64,7 +66,7 @@ export function GigBar({ gig, tunes, at, isLeader, members }: Props) {
               <select className="mt-1 block w-full rounded bg-black text-white" value={gig.callerId ?? ""} onChange={(e) => void gig.handTo(e.target.value || null)} data-testid="hand-calling">
                 <option value="">Me (the leader)</option>
                 {members
-                  .filter((m) => m.role !== "leader")
+                  .filter((m) => !can(m.role, "callTunes"))
                   .map((m) => (
                     <option key={m.userId} value={m.userId}>
                       {m.name}

@@ -13,6 +13,7 @@ import { getLocalBook } from "@/lib/offline/db";
 import { syncNow, useChart, useMembership, useOnline } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
 import { errorMessage, RIGHTS_CAUTION, uploadFile } from "./upload";
+import { can } from "@/lib/band/roles";
 
 const KB = 1024;
 const sizeText = (n: number) => (n < KB * KB ? `${Math.max(1, Math.round(n / KB))} KB` : `${(n / KB / KB).toFixed(1)} MB`);
@@ -38,7 +39,7 @@ export function PartsScreen() {
   const onStand = (part: string) =>
     `/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(chartId)}/bandstand?part=${encodeURIComponent(part)}`;
 
-  const canUpload = membership?.role === "leader" || membership?.role === "arranger";
+  const canUpload = can(membership?.role, "editCharts");
   const onFile = async (file: File | undefined) => {
     if (!file) return;
     setUpload({ progress: 0 });

@@ -4,6 +4,7 @@
 // in the side column; on the bandstand view the Play button sits in the bar and the rest opens above it.
 import { useId, useMemo, useState } from "react";
 import { cx } from "@/components/ui/cx";
+import { BarLabel } from "@/components/bandstand/BarLabel";
 import { MUTABLE_PARTS, type MutablePart } from "@/lib/accompaniment/types";
 import { planTune, sectionLabel, tempoAt, TEMPO_MAX_PERCENT, TEMPO_MIN_PERCENT, type Controls, type LoopChoice, type Tune } from "./request";
 import { usePlayer, type PlayerHandle } from "./usePlayer";
@@ -48,10 +49,17 @@ export function PlayerPanel({ chart, concertKey, intro, ending, tempo, host, tur
       className={cx(variant === "stage" ? "pp-bar-button" : "pp-play-button", playing && "pp-play-on")}
       onClick={player.toggle}
       disabled={player.status === "saving"}
+      aria-label={variant === "stage" ? (playing ? "Stop" : "Play") : undefined}
       data-testid="play-button"
     >
-      <span aria-hidden="true">{playing ? "■ " : "▶ "}</span>
-      {playing ? "Stop" : "Play"}
+      {variant === "stage" ? (
+        <BarLabel long={playing ? "■ Stop" : "▶ Play"} short={playing ? "■" : "▶"} />
+      ) : (
+        <>
+          <span aria-hidden="true">{playing ? "■ " : "▶ "}</span>
+          {playing ? "Stop" : "Play"}
+        </>
+      )}
     </button>
   );
   const status = (
@@ -64,8 +72,8 @@ export function PlayerPanel({ chart, concertKey, intro, ending, tempo, host, tur
     return (
       <>
         {playButton}
-        <button type="button" className="pp-bar-button" aria-expanded={open} aria-controls={panelId} onClick={() => setOpen(!open)} data-testid="sound-settings">
-          Sound
+        <button type="button" className="pp-bar-button" aria-expanded={open} aria-controls={panelId} onClick={() => setOpen(!open)} aria-label="Sound" data-testid="sound-settings">
+          <BarLabel long="Sound" short="♪" />
         </button>
         <section id={panelId} hidden={!open} className="pp-player pp-player-stage" aria-label="Sound">
           {status}

@@ -22,6 +22,7 @@ import { SetTunes, type TuneInfo } from "./SetTunes";
 import { SharePanel } from "./SharePanel";
 import { PushPrompt } from "@/components/push/PushPrompt";
 import { ReadinessPanel } from "@/components/readiness/ReadinessPanel";
+import { can } from "@/lib/band/roles";
 
 function plain(e: Omit<SetlistEntry, "choruses" | "straightIn"> & { choruses?: number; straightIn?: boolean }): SetlistEntry {
   return {
@@ -95,7 +96,7 @@ export function GigScreen() {
       </div>
 
       <PushPrompt context="setlist" />
-      {editable ? <div className="mb-4"><ReadinessPanel bandId={bandId} setlistId={setlist.id} canNudge={membership?.role === "leader"} /></div> : null}
+      {editable ? <div className="mb-4"><ReadinessPanel bandId={bandId} setlistId={setlist.id} canNudge={can(membership?.role, "nudgeBand")} /></div> : null}
       <div className="mb-6 flex flex-wrap items-end gap-3 rounded-lg border border-ink-soft p-3">
         <SelectField label="Read as" value={part} onChange={(e) => setInstrument(e.target.value)} options={INSTRUMENT_OPTIONS} className="min-w-64" data-testid="play-instrument" />
         <LinkButton href={`${here}/play?instrument=${encodeURIComponent(part)}`} data-testid="play-set">Play this set</LinkButton>
@@ -130,10 +131,10 @@ export function GigScreen() {
           onFirstSave={() => router.replace(here)}
         />
       ) : (
-        <ReadOnlySets entries={entries} tunes={tunes} openHref={openHref} setMinutes={setlist.setMinutes ?? []} />
+        <ReadOnlySets entries={entries} tunes={tunes} openHref={openHref} setMinutes={setlist.setMinutes ?? []} part={part} />
       )}
 
-      {membership?.role === "leader" ? (
+      {can(membership?.role, "shareWithSubs") ? (
         <div className="mt-8">
           {saved ? (
             <SharePanel bandId={bandId} setlistId={setlist.id} startsAt={startsAt} />
@@ -146,7 +147,7 @@ export function GigScreen() {
   );
 }
 
-function ReadOnlySets({ entries, tunes, openHref, setMinutes }: { entries: SetlistEntry[]; tunes: Map<string, TuneInfo>; openHref: (e: SetlistEntry) => string; setMinutes: (number | null)[] }) {
+function ReadOnlySets({ entries, tunes, openHref, setMinutes, part }: { entries: SetlistEntry[]; tunes: Map<string, TuneInfo>; openHref: (e: SetlistEntry) => string; setMinutes: (number | null)[]; part: string }) {
   const sets = groupBySet(entries);
   if (sets.length === 0) return <Notice title="No tunes yet">The leader has not put any tunes on this set list yet.</Notice>;
   const noop = () => undefined;
@@ -156,7 +157,7 @@ function ReadOnlySets({ entries, tunes, openHref, setMinutes }: { entries: Setli
         <section key={s.setNumber} aria-labelledby={`set-${s.setNumber}`} className="rounded-lg border border-ink-soft bg-paper-dim p-4" data-testid={`set-${s.setNumber}`}>
           <h2 id={`set-${s.setNumber}`} className="mb-3 text-xl font-bold">Set {s.setNumber}</h2>
           <SetLength setNumber={s.setNumber} entries={s.entries} tunes={tunes} target={setMinutes[s.setNumber - 1] ?? null} />
-          <SetTunes setNumber={s.setNumber} setCount={sets.length} entries={s.entries} tunes={tunes} editable={false} openHref={openHref} onReorder={noop} onChange={noop} onRemove={noop} onMoveToSet={noop} />
+          <SetTunes setNumber={s.setNumber} setCount={sets.length} entries={s.entries} tunes={tunes} editable={false} openHref={openHref} part={part} onReorder={noop} onChange={noop} onRemove={noop} onMoveToSet={noop} />
         </section>
       ))}
     </div>

@@ -8,20 +8,17 @@ import { FollowedBandstand } from "@/components/gig/FollowedBandstand";
 import { Notice } from "@/components/ui/Notice";
 import { useBandRoute } from "@/lib/offline/route";
 import { isInstrumentId } from "@/lib/music/instruments";
+import { partKeyInWords } from "@/lib/music/part-key";
 import { endingInWords, entryIntro, entryIntroInWords, playOrder, type SetlistEntry } from "@/lib/setlist";
 import { useBookCharts, useMyMembership, useSetlist } from "./data";
 import { useTuneMarks } from "@/components/marks/useBarMarks";
 
-function prettyKey(k: string): string {
-  return k.replace("b", "♭").replace("#", "♯");
-}
-
 /** The line at the top of each tune: where it sits in the night and how it goes tonight. */
-export function tuneHeading(e: SetlistEntry, title: string, chartKey: string, chartTempo: number | null): string {
+export function tuneHeading(e: SetlistEntry, title: string, chartKey: string, chartTempo: number | null, instrument = "concert"): string {
   const tempo = e.tempo ?? chartTempo;
   return [
     `Set ${e.setNumber} · ${e.position + 1}. ${title}`,
-    `Key ${prettyKey(e.key ?? chartKey)}`,
+    `Key ${partKeyInWords(e.key ?? chartKey, instrument)}`,
     tempo ? `♩ = ${tempo}` : "",
     `Intro: ${entryIntroInWords(e)}`,
     e.ending ? `End: ${endingInWords(e.ending)}` : "",
@@ -56,7 +53,7 @@ export function PlaySet() {
             key: e.key,
             intro: entryIntro(e),
             tag: e.ending?.kind === "tag" ? { bars: e.ending.bars, times: e.ending.times } : null,
-            label: tuneHeading(e, c.title, c.body.key, c.body.tempo),
+            label: tuneHeading(e, c.title, c.body.key, c.body.tempo, instrument),
             next: nextTitle ? `Next: ${nextTitle}` : undefined,
             nextTitle,
             introText: entryIntroInWords(e),
@@ -65,7 +62,7 @@ export function PlaySet() {
           },
         ];
       }),
-    [order, byId, marks],
+    [order, byId, marks, instrument],
   );
 
   if (!bandId || !setlistId) return null;

@@ -12,12 +12,12 @@ import { INSTRUMENT_SHORT } from "@/components/ui/labels";
 import type { InstrumentId } from "@/lib/validation/common";
 import { useBandRoute } from "@/lib/offline/route";
 import { endingInWords, entryIntro, entryIntroInWords, groupBySet, playOrder, SHARING_CAUTION, type SetlistEntry } from "@/lib/setlist";
-import { useBookCharts, useSetlist } from "./data";
+import { useBookCharts, useMyMembership, useSetlist } from "./data";
+import { isInstrumentId } from "@/lib/music/instruments";
+import { keyInWords, partKeyInWords } from "@/lib/music/part-key";
 import { gigWhen } from "./datetime";
 
-function prettyKey(k: string): string {
-  return k.replace("b", "♭").replace("#", "♯");
-}
+const prettyKey = keyInWords;
 
 export function PrintSet() {
   const { bandId, setlistId } = useBandRoute();
@@ -25,6 +25,10 @@ export function PrintSet() {
   const parts = params.get("parts");
   const loaded = useSetlist(setlistId);
   const charts = useBookCharts(bandId);
+  const membership = useMyMembership(bandId);
+  // The floor copy names keys in the reader's part (concert labelled), or the part asked for.
+  const asked = params.get("instrument");
+  const reader = asked && isInstrumentId(asked) ? asked : (membership?.instrument ?? "concert");
   const byId = useMemo(() => new Map((charts ?? []).map((c) => [c.id, c])), [charts]);
   const entries = useMemo(() => (loaded?.entries ?? []) as SetlistEntry[], [loaded]);
   if (!bandId || !setlistId) return null;
@@ -62,7 +66,7 @@ export function PrintSet() {
                     return (
                       <li key={e.id} className="py-1" data-testid="printed-tune">
                         <span className="font-bold">{i + 1}. {c?.title ?? "?"}</span>{" "}
-                        <span className="whitespace-nowrap">– {prettyKey(e.key ?? c?.concertKey ?? "")}</span>
+                        <span className="whitespace-nowrap" data-testid="printed-key">– {partKeyInWords(e.key ?? c?.concertKey ?? "C", reader)}</span>
                         <span className="block text-[0.55em] leading-snug">
                           Intro: {entryIntroInWords(e)}
                           {e.tempo ? ` · ♩ = ${e.tempo}` : ""}

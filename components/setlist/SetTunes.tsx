@@ -1,6 +1,7 @@
 "use client";
 // One set's tunes in play order. Reorder by dragging the grip, by keyboard on the grip (Space to lift,
 // arrows to move, Space to drop), or with the Up/Down buttons; each tune opens its arrangement.
+import { partKeyInWords } from "@/lib/music/part-key";
 import {
   closestCenter,
   DndContext,
@@ -39,6 +40,8 @@ interface Props {
   onMoveToSet: (id: string, setNumber: number) => void;
   /** Where the tune opens with tonight's choices (the chart page). */
   openHref?: (e: SetlistEntry) => string;
+  /** The part the reader reads (an instrument id): keys are named in it, concert labelled. Concert if not given. */
+  part?: string;
 }
 
 function titleOf(tunes: Map<string, TuneInfo>, e: SetlistEntry): string {
@@ -81,7 +84,7 @@ function Row({ entry, index, props }: { entry: SetlistEntry; index: number; prop
             {tune?.changed ? <span className="ml-2 text-sm font-normal text-brass-dark">changed since you read it</span> : null}
           </p>
           <p className="text-sm text-ink-muted">
-            Key {entry.key ?? tune?.chart?.key ?? "as written"}
+            <span data-testid="tune-key-shown">Key {entry.key ?? tune?.chart?.key ? partKeyInWords((entry.key ?? tune?.chart?.key)!, props.part ?? "concert") : "as written"}</span>
             {entry.tempo ? ` · ♩ = ${entry.tempo}` : ""} · Intro: {entryIntroInWords(entry)} · Ending: {endingInWords(entry.ending)}
             {entry.soloOrder ? ` · Solos: ${entry.soloOrder}${entry.choruses > 1 ? ` (${entry.choruses} choruses each)` : ""}` : ""}
             <span data-testid="tune-length">{seconds !== null ? ` · about ${formatTuneLength(seconds)}` : " · no tempo, length unknown"}</span>

@@ -61,7 +61,13 @@ export function prettyAlterations(s: string): string {
 }
 
 /** Width of one character in em, by class: caps, narrow marks, digits and lower case, accidentals. */
+/** Ideographs, kana, Hangul and full-width forms take a whole em; emoji a little more. */
+const WIDE = /[\u1100-\u115F\u2E80-\uA4CF\uAC00-\uD7A3\uF900-\uFAFF\uFE30-\uFE4F\uFF00-\uFF60\uFFE0-\uFFE6]/u;
+const EMOJI = /\p{Extended_Pictographic}/u;
+
 function charEm(ch: string): number {
+  if (EMOJI.test(ch)) return 1.2;
+  if (WIDE.test(ch)) return 1.0;
   if (/[MW]/.test(ch)) return 1.0;
   if (/[A-Z]/.test(ch)) return 0.76;
   if (/[mw]/.test(ch)) return 0.95;

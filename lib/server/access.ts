@@ -5,7 +5,7 @@ import type { Kysely } from "kysely";
 import type { Database, Membership } from "@/db/schema";
 import { membershipRow } from "@/db/sync-queries";
 import { AppError } from "./errors";
-import { CAN, type Permission, describeRoles } from "./roles";
+import { can, describePermission, type Permission } from "@/lib/band/roles";
 
 export interface Actor {
   userId: string;
@@ -35,9 +35,8 @@ export async function requireMember(
 ): Promise<Membership> {
   const m = await findMembership(db, signedIn(actor).userId, bandId);
   if (!m) throw new AppError("not_found", "That band was not found.");
-  const allowed: readonly string[] = CAN[permission];
-  if (!allowed.includes(m.role)) {
-    throw new AppError("forbidden", `This needs ${describeRoles(CAN[permission])}; you are a ${m.role} in this band.`);
+  if (!can(m.role, permission)) {
+    throw new AppError("forbidden", `This needs ${describePermission(permission)}; you are a ${m.role} in this band.`);
   }
   return m;
 }

@@ -9,7 +9,8 @@ import type { AttachmentRow, Database } from "@/db/schema";
 import { requireMember, type Actor, signedIn } from "./access";
 import { recordChange } from "./changes";
 import { AppError } from "./errors";
-import { readUpload, type Upload } from "./imports";
+import type { Upload } from "./imports";
+import { peek, receiveFile, type IncomingFile } from "./upload-stream";
 import { requireChartReader } from "./chart-access";
 import { partStore, PartTooLarge, type StoredPart } from "./part-store";
 import { newId, nowIso } from "./tokens";
@@ -30,11 +31,39 @@ export function sniffAttachment(b: Uint8Array): AttachmentType | null {
   return null;
 }
 
-/** A rough page count from the PDF's page objects; the viewer counts exactly when it opens the file. */
-function pdfPages(b: Uint8Array): number | null {
-  const text = Buffer.from(b.buffer, b.byteOffset, b.byteLength).toString("latin1");
-  const n = text.match(/\/Type\s*\/Page(?![s\w])/g)?.length ?? 0;
-  return n > 0 ? n : null;
+const PAGE_OBJECT = /\/Type\s*\/Page(?![s\w])/g;
+/** Longest page-object mark that is still found across two chunks. */
+const PAGE_CARRY = 256;
+
+/**
+ * A rough page count from the PDF's page objects, counted as the bytes stream past (a mark split
+ * between two chunks counts once); the viewer counts exactly when it opens the file.
+ */
+export class PdfPageCounter {
+  private carry = "";
+  private count = 0;
+
+  /** Counts the marks that end in this chunk and have the character after them in view. */
+  feed(chunk: Uint8Array): void {
+    this.scan(this.carry + Buffer.from(chunk.buffer, chunk.byteOffset, chunk.byteLength).toString("latin1"), { final: false });
+  }
+
+  pages(): number | null {
+    this.scan(this.carry, { final: true });
+    this.carry = "";
+    return this.count > 0 ? this.count : null;
+  }
+
+  /** The previous scan counted marks ending before the carry's last character; this one counts from there. */
+  private scan(text: string, { final }: { final: boolean }): void {
+    const from = this.carry.length;
+    const upTo = final ? text.length : text.length - 1; // the look-ahead needs the character after a mark
+    for (const m of text.matchAll(PAGE_OBJECT)) {
+      const end = m.index + m[0].length;
+      if (end >= from && end <= upTo) this.count++;
+    }
+    this.carry = text.slice(-PAGE_CARRY);
+  }
 }
 
 function toDto(r: AttachmentRow): AttachmentDto {
@@ -46,19 +75,26 @@ async function requireChart(db: Kysely<Database>, bandId: string, chartId: strin
   if (!chart) throw new AppError("not_found", "That chart was not found.");
 }
 
-export async function uploadAttachment(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, file: Upload): Promise<AttachmentDto> {
-  await requireMember(db, actor, bandId, "editCharts");
-  await requireChart(db, bandId, chartId);
-  if (file.bytes.byteLength > MAX_ATTACHMENT_BYTES) {
-    throw new AppError("payload_too_large", "That file is larger than 20 MB, the most Pedalpoint takes for a part.");
-  }
-  const type = sniffAttachment(file.bytes);
+const tooLarge = () => new AppError("payload_too_large", "That file is larger than 20 MB, the most Pedalpoint takes for a part.");
+
+/** Stores a part as its bytes stream past: the type from its first bytes, the pages counted on the way. */
+async function storeAttachment(db: Kysely<Database>, actor: Actor, bandId: string, chartId: string, file: IncomingFile): Promise<AttachmentDto> {
+  const { head, all } = await peek(file.chunks, 8);
+  if (head.byteLength === 0) throw new AppError("bad_request", "That file is empty.", { fields: [{ field: "file", message: "The file is empty" }] });
+  const type = sniffAttachment(head);
   if (!type) throw new AppError("unsupported_media_type", "Pedalpoint takes PDF, PNG and JPEG files for parts; this file is none of those.");
+  const counter = type === "application/pdf" ? new PdfPageCounter() : null;
+  async function* counted(): AsyncGenerator<Uint8Array> {
+    for await (const chunk of all) {
+      counter?.feed(chunk);
+      yield chunk;
+    }
+  }
   let stored: StoredPart;
   try {
-    stored = await partStore().put([file.bytes], { maxBytes: MAX_ATTACHMENT_BYTES, type });
+    stored = await partStore().put(counted(), { maxBytes: MAX_ATTACHMENT_BYTES, type });
   } catch (err) {
-    if (err instanceof PartTooLarge) throw new AppError("payload_too_large", "That file is larger than 20 MB, the most Pedalpoint takes for a part.");
+    if (err instanceof PartTooLarge) throw tooLarge();
     throw err;
   }
   const row: AttachmentRow = {
@@ -70,8 +106,8 @@ export async function uploadAttachment(db: Kysely<Database>, actor: Actor | null
     sha256: stored.sha256,
     size: stored.size,
     type,
-    pages: type === "application/pdf" ? pdfPages(file.bytes) : 1,
-    uploaded_by: signedIn(actor).userId,
+    pages: counter ? counter.pages() : 1,
+    uploaded_by: actor.userId,
     created_at: nowIso(),
     deleted_at: null,
   };
@@ -80,6 +116,18 @@ export async function uploadAttachment(db: Kysely<Database>, actor: Actor | null
     await recordChange(trx, { bandId, entity: "attachment", entityId: row.id, op: "upsert" });
   });
   return toDto(row);
+}
+
+async function* once(bytes: Uint8Array): AsyncGenerator<Uint8Array> {
+  yield bytes;
+}
+
+/** A part already in memory (imports, tests): the same checks and store as an upload. */
+export async function uploadAttachment(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, file: Upload): Promise<AttachmentDto> {
+  await requireMember(db, actor, bandId, "editCharts");
+  await requireChart(db, bandId, chartId);
+  if (file.bytes.byteLength > MAX_ATTACHMENT_BYTES) throw tooLarge();
+  return storeAttachment(db, signedIn(actor), bandId, chartId, { name: file.name, chunks: once(file.bytes) });
 }
 
 /** Members who read the book see a chart's parts; a sub sees those of charts shared with them. */
@@ -135,5 +183,6 @@ export async function deleteAttachment(db: Kysely<Database>, actor: Actor | null
 export async function uploadAttachmentRequest(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, request: Request): Promise<AttachmentDto> {
   await requireMember(db, actor, bandId, "editCharts");
   await requireChart(db, bandId, chartId);
-  return uploadAttachment(db, actor, bandId, chartId, await readUpload(request, MAX_ATTACHMENT_BYTES, "a part"));
+  // Streamed from the request into the part store: never the whole file in memory.
+  return receiveFile(request, { maxBytes: MAX_ATTACHMENT_BYTES, what: "a part" }, (file) => storeAttachment(db, signedIn(actor), bandId, chartId, file));
 }

@@ -7,6 +7,7 @@ import { expect, test, type Page } from "@playwright/test";
 import { DEMO_ACCOUNTS, DEMO_GIG_ID } from "../../db/seed";
 import { signIn } from "./helpers/auth";
 import { expectNoSeriousA11yIssues } from "./helpers/axe";
+import { watchConsole } from "./helpers/console";
 import { DEMO_BAND_ID } from "./helpers/demo";
 import { addChart, chartId } from "./helpers/gig";
 
@@ -17,10 +18,9 @@ const asRole = (page: Page, role: string, to: string) => signIn(page, account(ro
 test.describe("desk items of issue 16", () => {
   
 
-  // Open: React's hydration mismatch (#418) is still logged on the band pages, so this check stays off
-  // (and the other tests here run without the console guard) until it is found.
-  test.fixme("item 11: pages load with no console error and /favicon.ico is served", async ({ page, request }) => {
+  test("item 11: pages load with no console error and /favicon.ico is served", async ({ page, request }) => {
     test.setTimeout(180_000);
+    const watch = watchConsole(page);
     expect((await request.get("/favicon.ico")).status()).toBe(200);
     for (const path of ["/", "/signin", "/signup"]) {
       await page.goto(path);
@@ -43,6 +43,7 @@ test.describe("desk items of issue 16", () => {
       await page.goto(path);
       await page.waitForLoadState("networkidle");
     }
+    watch.expectClean();
   });
 
   test("items 24 and 25: tonight's demo gig shows each set's length against the leader's, and follows a tempo change live", async ({ page }) => {

@@ -108,3 +108,19 @@ test("upload a PDF part, then turn its pages with pedal keys and taps with no si
   expect(drawn).toBe(true);
   await context.setOffline(false);
 });
+
+test("a score chart text cannot hold as written is imported with the changed bars named", async ({ page }) => {
+  const leader = demoLeader();
+  await signIn(page, leader.email, leader.password, `/bands/${bandId}`);
+  await page.goto(`/bands/${bandId}/import`);
+  // MusicXML test suite 61i: one 4/4 measure holding a single quarter note (not a pickup: the piece has one bar)
+  await page.getByTestId("import-files").setInputFiles(path.join(FIXTURES, "musicxml/suite/61i-Lyrics-Chords.xml"));
+  const item = page.getByTestId("import-item").filter({ hasText: "61i-Lyrics-Chords.xml" });
+  await expect(item).toHaveAttribute("data-phase", "ready", { timeout: 30_000 });
+  const changed = item.getByTestId("import-changed");
+  await expect(changed).toContainText("Imported with changes");
+  await expect(changed).toContainText("measures shorter than their time signature: filled with rests (1) — bar 1");
+  await expect(item.getByTestId("import-refused")).toHaveCount(0);
+  await item.getByTestId("import-save").click();
+  await expect(item.getByTestId("import-saved")).toBeVisible({ timeout: 30_000 });
+});

@@ -26,9 +26,7 @@ async function readiness(page: Page) {
 test.describe("pushed updates and readiness", () => {
   test.use({ viewport: { width: 390, height: 760 } });
 
-  // Open: on the merged build the player's device never reports ready after the pushed sync (it passed
-  // on its own branch); off until the device report after a worker-side pull is traced.
-  test.fixme("a closed player's device gets the leader's edit by push, shows what changed offline, and only then counts as ready", async ({ browser, baseURL }) => {
+  test("a closed player's device gets the leader's edit by push, shows what changed offline, and only then counts as ready", async ({ browser, baseURL }) => {
     test.setTimeout(180_000);
     const leaderCtx = await browser.newContext({ viewport: { width: 1200, height: 900 } });
     const playerCtx = await browser.newContext();

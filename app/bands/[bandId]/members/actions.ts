@@ -7,6 +7,7 @@ import { action, type ActionOutcome } from "@/lib/server/action";
 import { inviteMember, removeMember, updateMember } from "@/lib/server/members";
 import { BandParams, MemberParams } from "@/lib/validation/params";
 import type { MemberFormState } from "@/components/library/members/form-state";
+import { aRole, accessEnds } from "@/lib/band/roles";
 
 function text(form: FormData, name: string): string {
   const v = form.get(name);
@@ -30,7 +31,7 @@ export async function inviteAction(bandId: string, _prev: MemberFormState, form:
       role,
       instrument: text(form, "instrument") || "concert",
       // An end time only means something for a sub.
-      accessExpiresAt: role === "sub" && until ? until : null,
+      accessExpiresAt: accessEnds(role) && until ? until : null,
     });
     revalidatePath(`/bands/${params.bandId}/members`);
     return result.mailed
@@ -47,10 +48,10 @@ export async function updateMemberAction(bandId: string, userId: string, _prev: 
     const updated = await updateMember(db, actor, params.bandId, params.userId, {
       role,
       instrument: text(form, "instrument"),
-      expiresAt: role === "sub" && until ? until : null,
+      expiresAt: accessEnds(role) && until ? until : null,
     });
     revalidatePath(`/bands/${params.bandId}/members`);
-    return `Saved: ${updated.name} is now ${updated.role === "arranger" ? "an" : "a"} ${updated.role}.`;
+    return `Saved: ${updated.name} is now ${aRole(updated.role)}.`;
   });
   return answer(outcome);
 }

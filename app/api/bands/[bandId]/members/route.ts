@@ -2,14 +2,14 @@ import { NextResponse } from "next/server";
 import { findMembership } from "@/lib/server/access";
 import { route } from "@/lib/server/handler";
 import { inviteMember, listInvites, listMembers } from "@/lib/server/members";
-import { CAN } from "@/lib/server/roles";
+import { can } from "@/lib/band/roles";
 import { InviteCreateSchema } from "@/lib/validation/band";
 import { BandParams } from "@/lib/validation/params";
 
 export const GET = route({ params: BandParams }, async ({ db, actor, params }) => {
   const members = await listMembers(db, actor, params.bandId);
   const me = actor ? await findMembership(db, actor.userId, params.bandId) : null;
-  const leader = me ? (CAN.manageMembers as readonly string[]).includes(me.role) : false;
+  const leader = can(me?.role, "manageMembers");
   return { members, invites: leader ? await listInvites(db, actor, params.bandId) : [] };
 });
 
