@@ -137,8 +137,6 @@ export const PullQuerySchema = z.object({
 });
 export type PullQuery = z.infer<typeof PullQuerySchema>;
 
-export const MUTATION_ENTITIES = ["chart", "setlist", "annotation"] as const;
-
 export const MutationSchema = z.object({
   mutationId: z.string().min(8).max(64),
   entity: z.string().min(1).max(32),
