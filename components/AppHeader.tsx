@@ -6,6 +6,7 @@ import { useState } from "react";
 import { useBandRoute } from "@/lib/offline/route";
 import { signOutAndClear, useMembership, useMyBands } from "@/lib/offline/hooks";
 import { cx } from "@/components/ui/cx";
+import { can } from "@/lib/band/roles";
 
 interface NavItem {
   href: string;
@@ -25,6 +26,7 @@ function navFor(bandId: string, isLeader: boolean, canEdit = isLeader): NavItem[
   if (isLeader) items.push({ href: `${base}/members`, label: "Members", testId: "nav-members" });
   if (isLeader) items.push({ href: `${base}/plan`, label: "Plan", testId: "nav-plan" });
   items.push({ href: "/settings", label: "Settings", testId: "nav-settings" });
+  items.push({ href: "/account", label: "Account", testId: "nav-account" });
   return items;
 }
 
@@ -61,7 +63,7 @@ export function AppHeader() {
   const band = bandId ? bands?.find((b) => b.id === bandId) : undefined;
   // Reading views (the bandstand, playing a set) use the whole screen.
   const onStage = isStagePath(pathname);
-  const items = bandId ? navFor(bandId, membership?.role === "leader", membership?.role === "leader" || membership?.role === "arranger") : [];
+  const items = bandId ? navFor(bandId, can(membership?.role, "manageMembers"), can(membership?.role, "editCharts")) : [];
 
   async function signOut() {
     setLeaving(true);

@@ -2,7 +2,7 @@
 // Timestamps are ISO-8601 strings in UTC; ids are random (UUID) so devices can create rows offline.
 import type { ColumnType, Generated, Insertable, Selectable, Updateable } from "kysely";
 
-export type Role = "leader" | "arranger" | "player" | "sub";
+import type { Role } from "@/lib/band/roles";
 
 export interface UsersTable {
   id: string;

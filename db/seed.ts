@@ -7,7 +7,8 @@ import { createHash } from "node:crypto";
 import { parseChartText } from "@/lib/chart";
 import { DEMO_CHARTS } from "./demo-charts";
 import { DEMO_GIG, demoGigStart, demoShareEnd } from "./demo-gig";
-import type { Database, Role } from "./schema";
+import type { Role } from "@/lib/band/roles";
+import type { Database } from "./schema";
 
 export const DEMO_PASSWORD = "pedalpoint-demo";
 

@@ -269,10 +269,10 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
           type="button"
           className="pp-bar-button"
           onClick={() => setTheme(settings.theme === "stage" ? "ember" : "stage")}
-          aria-label={settings.theme === "stage" ? "Night light" : "Stage light"}
+          aria-label={settings.theme === "stage" ? "Ember light" : "Stage light"}
           data-testid="theme-toggle"
         >
-          <BarLabel long={settings.theme === "stage" ? "Night light" : "Stage light"} short={settings.theme === "stage" ? "☾" : "☀"} />
+          <BarLabel long={settings.theme === "stage" ? "Ember light" : "Stage light"} short={settings.theme === "stage" ? "☾" : "☀"} />
         </button>
         {!online ? (
           <span className="pp-offline" data-testid="offline-badge" role="status">

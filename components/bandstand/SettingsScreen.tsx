@@ -90,7 +90,7 @@ export function SettingsScreen() {
           {(
             [
               ["stage", "Stage: light text on near-black"],
-              ["ember", "Night: dim red on black, kindest to dark-adapted eyes"],
+              ["ember", "Ember: dim red on black, kindest to dark-adapted eyes"],
             ] as const
           ).map(([value, label]) => (
             <label key={value} className="mt-2 flex items-center gap-3">

@@ -22,6 +22,7 @@ import { buildPerformance } from "./performance";
 import { useBoxSize } from "./useBoxSize";
 import { PlayerPanel } from "@/components/player";
 import { useChoices } from "./useChoices";
+import { can } from "@/lib/band/roles";
 
 export function ChartScreen() {
   const { bandId, chartId } = useBandRoute();
@@ -63,7 +64,7 @@ export function ChartScreen() {
   if (!bandId || !chartId) return null;
   if (local === undefined) return <p className="p-6 text-ink-muted">Opening the chart…</p>;
   if (local === null || !chart) {
-    if (membership?.role === "sub") return <NotSharedWithSub bandId={bandId} />;
+    if (membership && !can(membership.role, "readBook")) return <NotSharedWithSub bandId={bandId} />;
     return (
       <main id="main" className="mx-auto max-w-3xl p-6">
         <Notice kind="error" title="This chart is not in your book">
@@ -93,7 +94,7 @@ export function ChartScreen() {
           <Link href={`/bands/${encodeURIComponent(bandId)}/import/parts?chart=${encodeURIComponent(chartId)}`} className={buttonClass("secondary")} data-testid="open-parts">
             PDF parts
           </Link>
-          {membership && membership.role !== "sub" ? (
+          {can(membership?.role, "readBook") ? (
             <a href={`/api/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(chartId)}/musicxml?instrument=${choices.instrument}`} className={buttonClass("secondary")} data-testid="export-musicxml" download>
               MusicXML
             </a>

@@ -4,7 +4,7 @@ import { z } from "zod";
 import { IntroChoiceSchema, IntroKindSchema, type IntroChoice, type TagEnding } from "@/lib/chart/model";
 import { INSTRUMENT_IDS, type InstrumentId } from "@/lib/music/instruments";
 
-export interface ChartParams {
+export interface ReadingChoices {
   instrument: InstrumentId | null;
   key: string | null;
   /** Tonight's tempo (beats a minute) from a set list; null: the chart's own. */
@@ -36,7 +36,7 @@ function optional<T>(schema: z.ZodType<T>, value: string | null): T | undefined 
   return r.success ? r.data : undefined;
 }
 
-export function parseChartParams(params: ReadableParams): ChartParams {
+export function parseReadingChoices(params: ReadableParams): ReadingChoices {
   const kind = optional(IntroKindSchema, params.get("intro"));
   let intro: IntroChoice | null | undefined = params.get("intro") === "none" ? null : undefined;
   if (kind) {

@@ -6,7 +6,7 @@ import { useCallback, useMemo, useRef, useSyncExternalStore } from "react";
 import type { IntroChoice, TagEnding } from "@/lib/chart/model";
 import { isInstrumentId, type InstrumentId } from "@/lib/music/instruments";
 import { rememberInstrument, rememberedInstrument } from "@/components/bandstand/settings";
-import { chartQuery, parseChartParams } from "./params";
+import { chartQuery, parseReadingChoices } from "./params";
 
 export interface Choices {
   instrument: InstrumentId;
@@ -27,7 +27,7 @@ export function useChoices(bandId: string | null, membershipInstrument: string |
   const params = useSearchParams();
   const router = useRouter();
   const pathname = usePathname();
-  const parsed = useMemo(() => parseChartParams(params), [params]);
+  const parsed = useMemo(() => parseReadingChoices(params), [params]);
   const list = params.get("list");
   const remembered = useSyncExternalStore(noop, () => (bandId ? rememberedInstrument(bandId) : null), () => null);
   const fallback = [remembered, membershipInstrument].find(isInstrumentId) ?? "concert";
@@ -41,7 +41,7 @@ export function useChoices(bandId: string | null, membershipInstrument: string |
   const replace = useCallback(
     (next: { instrument?: string | null; key?: string | null; intro?: IntroChoice | null }) => {
       const pending = asked.current && asked.current.from === current ? new URLSearchParams(asked.current.query) : null;
-      const base = pending ? parseChartParams(pending) : parsed;
+      const base = pending ? parseReadingChoices(pending) : parsed;
       const q = chartQuery({
         instrument: base.instrument ?? instrument,
         key: base.key,

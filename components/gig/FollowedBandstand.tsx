@@ -8,6 +8,7 @@ import { useChangedCharts } from "@/components/changes/useChangeSince";
 import { markChartSeen, useMembers, useMembership } from "@/lib/offline/hooks";
 import { GigBar } from "./GigBar";
 import { useGigFollow } from "./useGigFollow";
+import { can } from "@/lib/band/roles";
 
 export interface GigEntry {
   id: string;
@@ -28,7 +29,7 @@ export function FollowedBandstand({ bandId, setlistId, entries, ...stand }: Prop
   const ids = useMemo(() => entries.map((e) => e.id), [entries]);
   const gig = useGigFollow(bandId, setlistId, ids);
   const membership = useMembership(bandId);
-  const isLeader = membership?.role === "leader";
+  const isLeader = can(membership?.role, "callTunes");
   const members = useMembers(isLeader ? bandId : null);
   const changed = useChangedCharts(bandId);
   // Where this device is: its own turns since the last call it jumped to, else that call's tune.

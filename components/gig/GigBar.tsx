@@ -5,6 +5,7 @@ import { useState } from "react";
 import { BarLabel } from "@/components/bandstand/BarLabel";
 import type { LocalMember } from "@/lib/offline/types";
 import type { GigFollow } from "./useGigFollow";
+import { can } from "@/lib/band/roles";
 
 export interface GigTune {
   title: string;
@@ -65,7 +66,7 @@ export function GigBar({ gig, tunes, at, isLeader, members }: Props) {
               <select className="mt-1 block w-full rounded bg-black text-white" value={gig.callerId ?? ""} onChange={(e) => void gig.handTo(e.target.value || null)} data-testid="hand-calling">
                 <option value="">Me (the leader)</option>
                 {members
-                  .filter((m) => m.role !== "leader")
+                  .filter((m) => !can(m.role, "callTunes"))
                   .map((m) => (
                     <option key={m.userId} value={m.userId}>
                       {m.name}

@@ -9,6 +9,7 @@ import { syncNow, useMembership, useOnline } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
 import { ImportItem, type ImportEntry, type ItemState, type PreviewData } from "./ImportItem";
 import { errorMessage, RIGHTS_CAUTION, uploadFile } from "./upload";
+import { can } from "@/lib/band/roles";
 
 export function ImportScreen() {
   const { bandId } = useBandRoute();
@@ -19,7 +20,7 @@ export function ImportScreen() {
 
   if (!bandId) return null;
   const base = `/api/bands/${encodeURIComponent(bandId)}/imports`;
-  const canImport = membership?.role === "leader" || membership?.role === "arranger";
+  const canImport = can(membership?.role, "editCharts");
   const update = (id: string, fn: (s: ItemState) => ItemState) => setEntries((es) => es.map((e) => (e.id === id ? { ...e, state: fn(e.state) } : e)));
 
   const readFiles = async (files: FileList | null) => {

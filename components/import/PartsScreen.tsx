@@ -16,6 +16,7 @@ import { getLocalBook } from "@/lib/offline/db";
 import { syncNow, useChart, useMembership, useOnline } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
 import { errorMessage, RIGHTS_CAUTION, uploadFile } from "./upload";
+import { can } from "@/lib/band/roles";
 
 const KB = 1024;
 const sizeText = (n: number) => (n < KB * KB ? `${Math.max(1, Math.round(n / KB))} KB` : `${(n / KB / KB).toFixed(1)} MB`);
@@ -47,7 +48,7 @@ export function PartsScreen() {
   const onStand = (part: string) =>
     `/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(chartId)}/bandstand?part=${encodeURIComponent(part)}`;
 
-  const canUpload = membership?.role === "leader" || membership?.role === "arranger";
+  const canUpload = can(membership?.role, "editCharts");
   const base = `/api/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(chartId)}/attachments`;
   const named = partName.trim() !== "";
   const onFile = async (file: File | undefined) => {

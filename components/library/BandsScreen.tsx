@@ -11,6 +11,7 @@ import { PageColumn, PageTitle } from "@/components/ui/Page";
 import { INSTRUMENT_OPTIONS, instrumentLabel, roleLabel } from "@/components/ui/labels";
 import { syncNow, useLocalSession, useMyBands } from "@/lib/offline/hooks";
 import { BandCreateSchema } from "@/lib/validation/band";
+import { can } from "@/lib/band/roles";
 
 const CreatedSchema = z.object({ id: z.string() }).or(z.object({ band: z.object({ id: z.string() }) }));
 const ErrorSchema = z.object({ error: z.object({ message: z.string(), fields: z.array(z.object({ field: z.string(), message: z.string() })).optional() }) });
@@ -89,7 +90,7 @@ export function BandsScreen() {
   const all = useSearchParams().get("all") === "1";
   // A player, arranger or sub in one band goes straight to its library; starting a band is a leader's
   // errand, and `?all=1` (the header's "Your bands") still shows this page.
-  const only = bands?.length === 1 && bands[0]!.role !== "leader" && !all ? bands[0]! : null;
+  const only = bands?.length === 1 && !can(bands[0]!.role, "manageBand") && !all ? bands[0]! : null;
   useEffect(() => {
     if (only) router.replace(`/bands/${encodeURIComponent(only.id)}`);
   }, [only, router]);

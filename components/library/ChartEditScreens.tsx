@@ -10,11 +10,12 @@ import { useBandRoute } from "@/lib/offline/route";
 import { ChartForm } from "./ChartForm";
 import { ChartRemoval } from "./ChartRemoval";
 import { emptyValues, valuesFrom } from "./chart-form-model";
+import { can } from "@/lib/band/roles";
 
 function EditorsOnly({ bandId, children }: { bandId: string; children: ReactNode }) {
   const membership = useMembership(bandId);
   if (membership === undefined) return <p className="text-ink-muted">Opening the book…</p>;
-  if (membership?.role !== "leader" && membership?.role !== "arranger") {
+  if (!can(membership?.role, "editCharts")) {
     return (
       <Notice title="Only the leader and arrangers edit charts" testId="edit-refused">
         <p>Ask the leader if a chart needs fixing.</p>

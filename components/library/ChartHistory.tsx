@@ -8,6 +8,7 @@ import { formatDateTime } from "@/components/ui/labels";
 import { useChart, useChartRevisions, useMembership } from "@/lib/offline/hooks";
 import { restoreRevision } from "@/lib/offline/mutations";
 import { describeChange } from "./revision-diff";
+import { can } from "@/lib/band/roles";
 
 type Outcome = { kind: "success" | "error" | "info"; text: string } | null;
 
@@ -15,7 +16,7 @@ export function ChartHistory({ bandId, chartId }: { bandId: string; chartId: str
   const revisions = useChartRevisions(chartId);
   const chart = useChart(bandId, chartId);
   const membership = useMembership(bandId);
-  const canRestore = membership?.role === "leader" || membership?.role === "arranger";
+  const canRestore = can(membership?.role, "editCharts");
   const [asking, setAsking] = useState<number | null>(null);
   const [busy, setBusy] = useState(false);
   const [outcome, setOutcome] = useState<Outcome>(null);

@@ -15,6 +15,7 @@ import { LibraryControls } from "./LibraryControls";
 import { LibraryTable } from "./LibraryTable";
 import { SubEmptyBook } from "./SubNotices";
 import { applyQuery, facets, readQuery, writeQuery, type LibraryQuery, type SortColumn } from "./query";
+import { can } from "@/lib/band/roles";
 
 export function LibraryScreen() {
   const { bandId } = useBandRoute();
@@ -26,7 +27,7 @@ export function LibraryScreen() {
   const membership = useMembership(bandId ?? "");
   const bands = useMyBands();
   const band = bands?.find((b) => b.id === bandId);
-  const canEdit = membership?.role === "leader" || membership?.role === "arranger";
+  const canEdit = can(membership?.role, "editCharts");
 
   const setQuery = useCallback(
     (next: LibraryQuery) => router.replace(`${pathname}${writeQuery(next)}`, { scroll: false }),
@@ -77,7 +78,7 @@ export function LibraryScreen() {
       <div className="mt-4">
         {charts === undefined ? (
           <LibrarySkeleton />
-        ) : all.length === 0 && membership?.role === "sub" ? (
+        ) : all.length === 0 && membership && !can(membership.role, "readBook") ? (
           <SubEmptyBook bandId={bandId} />
         ) : all.length === 0 ? (
           <Notice title="The book is empty">

@@ -2,7 +2,7 @@
 import { arrange } from "@/lib/chart/perform";
 import type { Chart, IntroChoice, PerformanceBar } from "@/lib/chart/model";
 import type { EndingChoice } from "@/lib/setlist/model";
-import { playedBars, playedSections, type PlayedSection } from "@/lib/accompaniment/form";
+import { playedBars, playedSections, type PlayedSection } from "@/lib/accompaniment/as-played";
 import type { AccompanimentRequest } from "@/lib/accompaniment/types";
 
 export const TEMPO_MIN_PERCENT = 50;

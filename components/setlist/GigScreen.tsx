@@ -22,6 +22,7 @@ import { SetTunes, type TuneInfo } from "./SetTunes";
 import { SharePanel } from "./SharePanel";
 import { PushPrompt } from "@/components/push/PushPrompt";
 import { ReadinessPanel } from "@/components/readiness/ReadinessPanel";
+import { can } from "@/lib/band/roles";
 
 function plain(e: Omit<SetlistEntry, "choruses" | "straightIn"> & { choruses?: number; straightIn?: boolean }): SetlistEntry {
   return {
@@ -95,7 +96,7 @@ export function GigScreen() {
       </div>
 
       <PushPrompt context="setlist" />
-      {editable ? <div className="mb-4"><ReadinessPanel bandId={bandId} setlistId={setlist.id} canNudge={membership?.role === "leader"} /></div> : null}
+      {editable ? <div className="mb-4"><ReadinessPanel bandId={bandId} setlistId={setlist.id} canNudge={can(membership?.role, "nudgeBand")} /></div> : null}
       <div className="mb-6 flex flex-wrap items-end gap-3 rounded-lg border border-ink-soft p-3">
         <SelectField label="Read as" value={part} onChange={(e) => setInstrument(e.target.value)} options={INSTRUMENT_OPTIONS} className="min-w-64" data-testid="play-instrument" />
         <LinkButton href={`${here}/play?instrument=${encodeURIComponent(part)}`} data-testid="play-set">Play this set</LinkButton>
@@ -133,7 +134,7 @@ export function GigScreen() {
         <ReadOnlySets entries={entries} tunes={tunes} openHref={openHref} setMinutes={setlist.setMinutes ?? []} part={part} />
       )}
 
-      {membership?.role === "leader" ? (
+      {can(membership?.role, "shareWithSubs") ? (
         <div className="mt-8">
           {saved ? (
             <SharePanel bandId={bandId} setlistId={setlist.id} startsAt={startsAt} />

@@ -8,6 +8,7 @@ import { PageColumn, PageTitle } from "@/components/ui/Page";
 import { useBandRoute } from "@/lib/offline/route";
 import { canEditSetlists, newId, useMyMembership, useSetlistEntryCounts, useSetlists } from "./data";
 import { gigWhen } from "./datetime";
+import { can } from "@/lib/band/roles";
 
 export function SetlistsScreen() {
   const { bandId } = useBandRoute();
@@ -27,7 +28,7 @@ export function SetlistsScreen() {
   return (
     <PageColumn>
       <div className="flex flex-wrap items-end justify-between gap-4">
-        <PageTitle lead={membership?.role === "sub" ? "The set lists shared with you." : "Gigs and their sets, on this device for the bandstand."}>Set lists</PageTitle>
+        <PageTitle lead={membership && !can(membership.role, "readAllSetlists") ? "The set lists shared with you." : "Gigs and their sets, on this device for the bandstand."}>Set lists</PageTitle>
         {editable ? (
           <Button onClick={create} data-testid="new-setlist">
             New set list

@@ -10,6 +10,7 @@ import type { WireSetlist } from "@/lib/offline/protocol";
 import { getSyncEngine } from "@/lib/offline/sync";
 import type { LocalAnnotation, LocalChart, LocalMembership, LocalSetlist, LocalSetlistEntry } from "@/lib/offline/types";
 import { readMark, type MarkData, type SetlistEntry, type SetlistInput } from "@/lib/setlist";
+import { can } from "@/lib/band/roles";
 
 export interface LoadedSetlist {
   setlist: LocalSetlist;
@@ -94,7 +95,7 @@ export function chartBody(c: LocalChart | undefined): Chart | null {
 }
 
 export function canEditSetlists(m: LocalMembership | null | undefined): boolean {
-  return m?.role === "leader" || m?.role === "arranger";
+  return can(m?.role, "editSetlists");
 }
 
 export type SetlistMeta = Pick<LocalSetlist, "name" | "startsAt" | "venue" | "notes" | "setMinutes">;

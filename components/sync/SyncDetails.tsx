@@ -8,6 +8,7 @@ import { useBandCharts, useConflicts, useEngineState, useMyBands, useRejected, u
 import { dismissRejected } from "@/lib/offline/outbox";
 import { storageEstimate } from "@/lib/offline/sync";
 import type { ConflictRow } from "@/lib/offline/types";
+import { can } from "@/lib/band/roles";
 
 function size(bytes: number): string {
   if (bytes < 1024 * 1024) return `${Math.max(1, Math.round(bytes / 1024))} KB`;
@@ -83,8 +84,7 @@ export function SyncDetails({ summary, onDismissNotice }: { summary: string; onD
   const rejected = useRejected() ?? [];
   const bands = useMyBands() ?? [];
   const canEdit = (bandId: string) => {
-    const role = bands.find((b) => b.id === bandId)?.role;
-    return role === "leader" || role === "arranger";
+    return can(bands.find((b) => b.id === bandId)?.role, "editCharts");
   };
 
   return (

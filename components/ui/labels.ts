@@ -1,5 +1,5 @@
 // Words the screens use for roles, instruments and times, in one place so every screen says the same.
-import type { Role } from "@/db/schema";
+import type { Role } from "@/lib/band/roles";
 import type { InstrumentId } from "@/lib/validation/common";
 
 export const ROLE_LABELS: Record<Role, string> = {

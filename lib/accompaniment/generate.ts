@@ -6,7 +6,7 @@ import { parseChord, parseKey, type ChordTones } from "@/lib/music";
 import type { EndingChoice } from "@/lib/setlist/model";
 import type { Accompaniment, AccompanimentRequest, PlayEvent, PlayedBar, TimedBar } from "./types";
 import { feelOf, swingRatio } from "./feel";
-import { playedBars } from "./form";
+import { playedBars } from "./as-played";
 import { gridOf, nearestOf } from "./grid";
 import { bassLine, BASS_HIGH, BASS_LOW } from "./bass";
 import { comping } from "./piano";

@@ -4,7 +4,7 @@ export { parseChartText, assertChartTextSize, METADATA_FIELDS, MAX_CHART_TEXT_CH
 export { ChartTextError } from "./text-error";
 export { serializeChart, BARS_PER_LINE } from "./text-serialize";
 export { readMelodyNote, formatMelodyNote, noteQuarters, barQuarters } from "./melody";
-export { analyzeTop, barsAsPlayed, firstChord, formAsPlayed, lastPassBars, secondsFor, type TopAnalysis } from "./form";
+export { analyseTop, barsAsPlayed, firstChord, formAsPlayed, lastPassBars, secondsFor, type TopAnalysis } from "./as-played";
 export { endingLabel, endingPassesOf, playsOnPass, type RepeatMarks } from "./endings";
 export { generateIntro, suggestIntros, type IntroOptions } from "./intro";
 export { CONCERT_READER, prettyMusic, type IntroReader } from "./intro-reader";

@@ -5,7 +5,7 @@ import {
 } from "@/lib/music";
 import { Note } from "tonal";
 import { INTRO_KINDS, type Bar, type Chart, type IntroChoice, type IntroKind, type IntroResult, type Meter } from "./model";
-import { analyzeTop, barOf, barsAsPlayed, blankBar, firstChord, formAsPlayed, lastPassBars, plainCopy, secondsFor, type TopAnalysis } from "./form";
+import { analyseTop, barOf, barsAsPlayed, blankBar, firstChord, formAsPlayed, lastPassBars, plainCopy, secondsFor, type TopAnalysis } from "./as-played";
 import { CONCERT_READER, type IntroReader } from "./intro-reader";
 
 export { CONCERT_READER, type IntroReader } from "./intro-reader";
@@ -130,7 +130,7 @@ export function generateIntro(chart: Chart, options: IntroOptions): IntroResult 
   const { kind } = opts;
   const r = opts.read ?? CONCERT_READER;
   const meter = chart.meter;
-  const top = analyzeTop(chart);
+  const top = analyseTop(chart);
   const target = firstChord(chart);
   const tritone = opts.tritoneSub ?? false;
   const base: IntroChoice = { kind, ...(tritone ? { tritoneSub: true } : {}) };

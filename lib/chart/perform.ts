@@ -6,7 +6,7 @@ import {
 } from "@/lib/music";
 import type { Arrangement, Bar, Barline, Chart, ChordSlot, IntroResult, PerformanceBar, PerformanceOptions, Section, TagEnding } from "./model";
 import { generateIntro } from "./intro";
-import { lastPassMask } from "./form";
+import { lastPassMask } from "./as-played";
 import { prettyMusic } from "./intro-reader";
 
 /** Chords moved between keys, remembered per symbol (a book repeats the same few hundred chords). */

@@ -195,9 +195,16 @@ function readMelodyLine(text: string, offset: number, line: number, sec: Pending
   });
 }
 
-export function parseChartText(text: string): Chart {
+export interface ParseChartOptions {
+  /** Header lines the caller supplies in front of the text (the form's fields); not counted against the size limits. */
+  header?: readonly string[];
+}
+
+export function parseChartText(text: string, options: ParseChartOptions = {}): Chart {
   assertChartTextSize(text);
-  const lines = text.replace(/\r\n?/g, "\n").split("\n").map(stripComment);
+  const header = options.header ?? [];
+  const full = header.length ? `${header.join("\n")}\n${text}` : text;
+  const lines = full.replace(/\r\n?/g, "\n").split("\n").map(stripComment);
   const meta: Meta = {};
   const seen = new Map<Field, number>();
   lines.forEach((raw, i) => {

@@ -2,7 +2,7 @@
 // Pure types and small zod schemas: no Dexie, no React, no database.
 import { z } from "zod";
 import type { Chart, IntroChoice } from "@/lib/chart/model";
-import type { Role } from "@/db/schema";
+import type { Role } from "@/lib/band/roles";
 
 /** Composer, key, meter, tempo and feel as they stood at a revision (stored by the backend as meta_json). */
 export type RevisionMeta = Record<string, unknown>;

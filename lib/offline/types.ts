@@ -1,6 +1,6 @@
 // What the UI reads from the local book. Rows in Dexie carry a few internal fields on top.
 import type { Chart } from "@/lib/chart/model";
-import type { Role } from "@/db/schema";
+import type { Role } from "@/lib/band/roles";
 import type { MutationIn, RevisionMeta, WireAnnotation, WireAttachment, WireSetlist, WireSetlistEntry } from "./protocol";
 
 export interface LocalSession {

@@ -5,7 +5,7 @@ import type { Kysely } from "kysely";
 import type { Database, Membership } from "@/db/schema";
 import { membershipRow } from "@/db/sync-queries";
 import { AppError } from "./errors";
-import { CAN, type Permission, describeRoles } from "./roles";
+import { can, describePermission, type Permission } from "@/lib/band/roles";
 
 export interface Actor {
   userId: string;
@@ -30,9 +30,8 @@ export async function requireMember(
   if (!actor) throw new AppError("unauthenticated", "Please sign in first.");
   const m = await findMembership(db, actor.userId, bandId);
   if (!m) throw new AppError("not_found", "That band was not found.");
-  const allowed: readonly string[] = CAN[permission];
-  if (!allowed.includes(m.role)) {
-    throw new AppError("forbidden", `This needs ${describeRoles(CAN[permission])}; you are a ${m.role} in this band.`);
+  if (!can(m.role, permission)) {
+    throw new AppError("forbidden", `This needs ${describePermission(permission)}; you are a ${m.role} in this band.`);
   }
   return m;
 }

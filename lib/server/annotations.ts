@@ -11,6 +11,7 @@ import { AppError, notFound } from "./errors";
 import { parseInput } from "./input";
 import { sharedChartIds } from "./shares";
 import { newId, nowIso } from "./tokens";
+import { can } from "@/lib/band/roles";
 
 type Db = Kysely<Database> | Transaction<Database>;
 
@@ -27,7 +28,7 @@ export function toMark(r: AnnotationRow): Mark | null {
 
 /** The chart as this member may read it, or 404 (a sub: only charts on a set list shared with them). */
 async function readableChart(db: Db, m: Membership, chartId: string, now: Date): Promise<{ chart: Chart; revision: number }> {
-  if (m.role === "sub" && !(await sharedChartIds(db, m.band_id, m.user_id, now)).includes(chartId)) throw notFound("That chart");
+  if (!can(m.role, "readBook") && !(await sharedChartIds(db, m.band_id, m.user_id, now)).includes(chartId)) throw notFound("That chart");
   const row = await db
     .selectFrom("charts")
     .select(["body_json", "revision"])

@@ -9,7 +9,8 @@ import type { AttachmentRow, Database } from "@/db/schema";
 import { requireMember, type Actor } from "./access";
 import { recordChange } from "./changes";
 import { AppError } from "./errors";
-import { readUpload, type Upload } from "./imports";
+import type { Upload } from "./imports";
+import { peek, receiveFile, type IncomingFile } from "./upload-stream";
 import { requireChartReader } from "./chart-access";
 import { partStore, PartTooLarge, type StoredPart } from "./part-store";
 import { newId, nowIso } from "./tokens";
@@ -34,11 +35,39 @@ export function sniffAttachment(b: Uint8Array): AttachmentType | null {
   return null;
 }
 
-/** A rough page count from the PDF's page objects; the viewer counts exactly when it opens the file. */
-function pdfPages(b: Uint8Array): number | null {
-  const text = Buffer.from(b.buffer, b.byteOffset, b.byteLength).toString("latin1");
-  const n = text.match(/\/Type\s*\/Page(?![s\w])/g)?.length ?? 0;
-  return n > 0 ? n : null;
+const PAGE_OBJECT = /\/Type\s*\/Page(?![s\w])/g;
+/** Longest page-object mark that is still found across two chunks. */
+const PAGE_CARRY = 256;
+
+/**
+ * A rough page count from the PDF's page objects, counted as the bytes stream past (a mark split
+ * between two chunks counts once); the viewer counts exactly when it opens the file.
+ */
+export class PdfPageCounter {
+  private carry = "";
+  private count = 0;
+
+  /** Counts the marks that end in this chunk and have the character after them in view. */
+  feed(chunk: Uint8Array): void {
+    this.scan(this.carry + Buffer.from(chunk.buffer, chunk.byteOffset, chunk.byteLength).toString("latin1"), { final: false });
+  }
+
+  pages(): number | null {
+    this.scan(this.carry, { final: true });
+    this.carry = "";
+    return this.count > 0 ? this.count : null;
+  }
+
+  /** The previous scan counted marks ending before the carry's last character; this one counts from there. */
+  private scan(text: string, { final }: { final: boolean }): void {
+    const from = this.carry.length;
+    const upTo = final ? text.length : text.length - 1; // the look-ahead needs the character after a mark
+    for (const m of text.matchAll(PAGE_OBJECT)) {
+      const end = m.index + m[0].length;
+      if (end >= from && end <= upTo) this.count++;
+    }
+    this.carry = text.slice(-PAGE_CARRY);
+  }
 }
 
 function toDto(r: AttachmentRow): AttachmentDto {
@@ -53,6 +82,8 @@ async function requireChart(db: Kysely<Database>, bandId: string, chartId: strin
   if (!chart) throw new AppError("not_found", "That chart was not found.");
 }
 
+const tooLarge = () => new AppError("payload_too_large", "That file is larger than 20 MB, the most Pedalpoint takes for a part.");
+
 /** What the form says about the part: its name, the instrument it is for, and the part it replaces. */
 export const PartDetailsSchema = z
   .object({
@@ -63,22 +94,41 @@ export const PartDetailsSchema = z
   .strict();
 export type PartDetails = z.infer<typeof PartDetailsSchema>;
 
-export async function uploadAttachment(
-  db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, file: Upload, details?: PartDetails,
-): Promise<AttachmentDto> {
-  await requireMember(db, actor, bandId, "editCharts");
-  await requireChart(db, bandId, chartId);
+/** The part's details from the form; a bare file (older clients, scripts) keeps its file name only. */
+export function readPartDetails(fields: Record<string, string>): PartDetails | undefined {
+  if (Object.keys(fields).length === 0) return undefined;
+  const r = PartDetailsSchema.safeParse(fields);
+  if (r.success) return r.data;
+  const issues = zodIssues(r.error);
+  throw new AppError("unprocessable", issues[0]?.message ?? "The part's details could not be read.", { fields: issues });
+}
+
+async function requirePart(db: Kysely<Database>, bandId: string, chartId: string, id: string): Promise<void> {
+  const found = await db.selectFrom("attachments").select("id").where("band_id", "=", bandId).where("chart_id", "=", chartId).where("id", "=", id).where("deleted_at", "is", null).executeTakeFirst();
+  if (!found) throw new AppError("not_found", "The part to replace was not found; it may have been deleted.", { fields: [{ field: "replaces", message: "That part is gone" }] });
+}
+
+/** Stores a part as its bytes stream past: the type from its first bytes, the pages counted on the way. */
+async function storeAttachment(db: Kysely<Database>, actor: Actor, bandId: string, chartId: string, file: IncomingFile): Promise<AttachmentDto> {
+  // The form's fields come before the file, so they are checked before a byte is stored.
+  const details = readPartDetails(file.fields ?? {});
   if (details?.replaces) await requirePart(db, bandId, chartId, details.replaces);
-  if (file.bytes.byteLength > MAX_ATTACHMENT_BYTES) {
-    throw new AppError("payload_too_large", "That file is larger than 20 MB, the most Pedalpoint takes for a part.");
-  }
-  const type = sniffAttachment(file.bytes);
+  const { head, all } = await peek(file.chunks, 8);
+  if (head.byteLength === 0) throw new AppError("bad_request", "That file is empty.", { fields: [{ field: "file", message: "The file is empty" }] });
+  const type = sniffAttachment(head);
   if (!type) throw new AppError("unsupported_media_type", "Pedalpoint takes PDF, PNG and JPEG files for parts; this file is none of those.");
+  const counter = type === "application/pdf" ? new PdfPageCounter() : null;
+  async function* counted(): AsyncGenerator<Uint8Array> {
+    for await (const chunk of all) {
+      counter?.feed(chunk);
+      yield chunk;
+    }
+  }
   let stored: StoredPart;
   try {
-    stored = await partStore().put([file.bytes], { maxBytes: MAX_ATTACHMENT_BYTES, type });
+    stored = await partStore().put(counted(), { maxBytes: MAX_ATTACHMENT_BYTES, type });
   } catch (err) {
-    if (err instanceof PartTooLarge) throw new AppError("payload_too_large", "That file is larger than 20 MB, the most Pedalpoint takes for a part.");
+    if (err instanceof PartTooLarge) throw tooLarge();
     throw err;
   }
   const row: AttachmentRow = {
@@ -90,10 +140,10 @@ export async function uploadAttachment(
     sha256: stored.sha256,
     size: stored.size,
     type,
-    pages: type === "application/pdf" ? pdfPages(file.bytes) : 1,
+    pages: counter ? counter.pages() : 1,
     part_name: details?.partName ?? null,
     instrument: details?.instrument ?? null,
-    uploaded_by: (actor as Actor).userId,
+    uploaded_by: actor.userId,
     created_at: nowIso(),
     deleted_at: null,
   };
@@ -107,6 +157,18 @@ export async function uploadAttachment(
     }
   });
   return toDto(row);
+}
+
+async function* once(bytes: Uint8Array): AsyncGenerator<Uint8Array> {
+  yield bytes;
+}
+
+/** A part already in memory (imports, tests): the same checks and store as an upload. */
+export async function uploadAttachment(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, file: Upload): Promise<AttachmentDto> {
+  await requireMember(db, actor, bandId, "editCharts");
+  await requireChart(db, bandId, chartId);
+  if (file.bytes.byteLength > MAX_ATTACHMENT_BYTES) throw tooLarge();
+  return storeAttachment(db, actor as Actor, bandId, chartId, { name: file.name, chunks: once(file.bytes) });
 }
 
 /** Members who read the book see a chart's parts; a sub sees those of charts shared with them. */
@@ -162,20 +224,6 @@ export async function deleteAttachment(db: Kysely<Database>, actor: Actor | null
 export async function uploadAttachmentRequest(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, request: Request): Promise<AttachmentDto> {
   await requireMember(db, actor, bandId, "editCharts");
   await requireChart(db, bandId, chartId);
-  const upload = await readUpload(request, MAX_ATTACHMENT_BYTES, "a part");
-  return uploadAttachment(db, actor, bandId, chartId, upload, readPartDetails(upload.fields ?? {}));
-}
-
-/** The part's details from the form; a bare file (older clients, scripts) is named after itself. */
-export function readPartDetails(fields: Record<string, string>): PartDetails | undefined {
-  if (Object.keys(fields).length === 0) return undefined;
-  const r = PartDetailsSchema.safeParse(fields);
-  if (r.success) return r.data;
-  const issues = zodIssues(r.error);
-  throw new AppError("unprocessable", issues[0]?.message ?? "The part's details could not be read.", { fields: issues });
-}
-
-async function requirePart(db: Kysely<Database>, bandId: string, chartId: string, id: string): Promise<void> {
-  const found = await db.selectFrom("attachments").select("id").where("band_id", "=", bandId).where("chart_id", "=", chartId).where("id", "=", id).where("deleted_at", "is", null).executeTakeFirst();
-  if (!found) throw new AppError("not_found", "The part to replace was not found; it may have been deleted.", { fields: [{ field: "replaces", message: "That part is gone" }] });
+  // Streamed from the request into the part store: never the whole file in memory.
+  return receiveFile(request, { maxBytes: MAX_ATTACHMENT_BYTES, what: "a part" }, (file) => storeAttachment(db, actor as Actor, bandId, chartId, file));
 }

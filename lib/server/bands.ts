@@ -1,7 +1,8 @@
 import "server-only";
 // Bands: create one (its creator leads it), list mine, read one.
 import type { Kysely } from "kysely";
-import type { Database, Role } from "@/db/schema";
+import type { Database } from "@/db/schema";
+import type { Role } from "@/lib/band/roles";
 import { BandCreateSchema } from "@/lib/validation/band";
 import { requireMember, type Actor } from "./access";
 import { recordChange } from "./changes";

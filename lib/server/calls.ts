@@ -8,6 +8,7 @@ import type { Database, Membership } from "@/db/schema";
 import { requireMember, type Actor } from "./access";
 import { AppError } from "./errors";
 import { assertCanSee } from "./setlists";
+import { can } from "@/lib/band/roles";
 
 export const CallSchema = z.object({ entryId: z.string().min(1).max(64) }).strict();
 export const CallerSchema = z.object({ userId: z.string().min(1).max(64).nullable() }).strict();
@@ -42,7 +43,7 @@ async function callerOf(db: Kysely<Database>, setlistId: string): Promise<string
   return (await db.selectFrom("gig_callers").select("user_id").where("setlist_id", "=", setlistId).executeTakeFirst())?.user_id ?? null;
 }
 
-const mayCall = (m: Membership, callerId: string | null) => m.role === "leader" || m.user_id === callerId;
+const mayCall = (m: Membership, callerId: string | null) => can(m.role, "callTunes") || m.user_id === callerId;
 
 type CallRow = { seq: number; setlist_id: string; entry_id: string; chart_id: string; called_by: string; created_at: string; name: string | null };
 const toCall = (r: CallRow): TuneCall => ({ seq: r.seq, setlistId: r.setlist_id, entryId: r.entry_id, chartId: r.chart_id, calledBy: r.called_by, calledByName: r.name ?? "", at: r.created_at });

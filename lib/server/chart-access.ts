@@ -8,6 +8,7 @@ import type { Database, Membership } from "@/db/schema";
 import { requireMember, type Actor } from "./access";
 import { AppError } from "./errors";
 import { sharedChartIds } from "./shares";
+import { can } from "@/lib/band/roles";
 
 export async function requireChartReader(
   db: Kysely<Database>,
@@ -17,7 +18,7 @@ export async function requireChartReader(
   refuse: "forbidden" | "not_found" = "forbidden",
 ): Promise<Membership> {
   const m = await requireMember(db, actor, bandId, "readSetlists");
-  if (m.role === "sub" && !(await sharedChartIds(db, bandId, m.user_id)).includes(chartId)) {
+  if (!can(m.role, "readBook") && !(await sharedChartIds(db, bandId, m.user_id)).includes(chartId)) {
     throw refuse === "forbidden"
       ? new AppError("forbidden", "This chart is not in a set list shared with you.")
       : new AppError("not_found", "That chart was not found.");

@@ -53,7 +53,7 @@ export function prepareChart(input: Pick<ChartInput, "title" | "composer" | "key
   const header = missingHeaderLines(input);
   let parsed: Chart;
   try {
-    parsed = parseChartText(header.length ? `${header.join("\n")}\n${input.sourceText}` : input.sourceText);
+    parsed = parseChartText(input.sourceText, { header });
   } catch (err) {
     if (err instanceof ChartTextError) {
       const line = Math.max(1, err.line - header.length);

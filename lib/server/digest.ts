@@ -3,7 +3,8 @@ import "server-only";
 // last notice. The band's place in the change feed (band_digests.last_seq) is what "since" means, so
 // two notices never list the same publication and nothing published in between is skipped.
 import type { Kysely } from "kysely";
-import type { Database, Role } from "@/db/schema";
+import type { Database } from "@/db/schema";
+import { can, type Role } from "@/lib/band/roles";
 import { sendMail } from "@/lib/mail";
 import { chartsUpdatedMail, type DigestChart } from "@/lib/mail/templates";
 import { requireMember, type Actor } from "./access";
@@ -136,7 +137,7 @@ export async function sendChartsUpdatedDigest(
     // A sub reads only the charts on set lists shared with them, so their notice names only those;
     // the rest of the book is none of their business.
     let charts = snap.entries;
-    if (r.role === "sub") {
+    if (!can(r.role, "readBook")) {
       const mine = new Set(await sharedChartIds(db, bandId, r.userId, now));
       charts = charts.filter((c) => mine.has(c.chartId));
     }

@@ -19,8 +19,6 @@ import { parseInput } from "./input";
 export interface Upload {
   name: string;
   bytes: Uint8Array;
-  /** The form's text fields beside the file (a part's name and instrument). */
-  fields?: Record<string, string>;
 }
 
 /** Room for the multipart envelope around the file itself. */
@@ -61,9 +59,7 @@ export async function readUpload(request: Request, maxBytes: number, what: strin
   }
   if (file.size > maxBytes) throw tooBig();
   if (file.size === 0) throw new AppError("bad_request", "That file is empty.", { fields: [{ field: "file", message: "The file is empty" }] });
-  const fields: Record<string, string> = {};
-  for (const [k, v] of form.entries()) if (typeof v === "string" && k !== "file") fields[k] = v;
-  return { name: (file.name || "upload").slice(0, 200), bytes: new Uint8Array(await file.arrayBuffer()), fields };
+  return { name: (file.name || "upload").slice(0, 200), bytes: new Uint8Array(await file.arrayBuffer()) };
 }
 
 const MUSICXML_STATUS: Record<MusicXmlError["code"], ErrorCode> = {

@@ -2,7 +2,8 @@ import "server-only";
 // Invites: a single-use link by e-mail that expires after a week, bound to one band and one
 // address. Only the token's hash is stored.
 import type { Kysely } from "kysely";
-import type { Database, Invite, Role } from "@/db/schema";
+import type { Database, Invite } from "@/db/schema";
+import { type Role, accessEnds } from "@/lib/band/roles";
 import { inviteMail, sendMail } from "@/lib/mail";
 import { InviteCreateSchema } from "@/lib/validation/band";
 import { requireMember, type Actor } from "./access";
@@ -64,7 +65,7 @@ export async function inviteMember(
   await requireMember(db, actor, bandId, "manageMembers");
   const me = actor as Actor;
   const data = parseInput(InviteCreateSchema, input);
-  if (data.accessExpiresAt && data.role !== "sub") {
+  if (data.accessExpiresAt && !accessEnds(data.role)) {
     throw new AppError("unprocessable", "Only a sub's access can have an end date.", {
       fields: [{ field: "accessExpiresAt", message: "Only a sub's access can end" }],
     });

@@ -2,9 +2,10 @@ import "server-only";
 // Members of a band: who plays what, roles, leaving. A band always keeps at least one leader.
 // Invites live in invites.ts and are re-exported here.
 import type { Kysely, Transaction } from "kysely";
-import type { Database, Role } from "@/db/schema";
+import type { Database } from "@/db/schema";
+import type { Role } from "@/lib/band/roles";
 import { MemberUpdateSchema, MyInstrumentSchema } from "@/lib/validation/band";
-import { RoleSchema } from "@/lib/validation/common";
+import { RoleSchema } from "@/lib/band/roles";
 import { requireMember, type Actor } from "./access";
 import { dropMemberSubscriptions } from "./push-subscriptions";
 import { recordChange } from "./changes";

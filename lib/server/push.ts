@@ -12,6 +12,7 @@ import type { PushMessage } from "@/lib/push/message";
 import { activeShareUsers, sharedChartIds } from "./shares";
 import { vapidKeys, vapidSubject } from "./push-keys";
 import { dropEndpoint } from "./push-subscriptions";
+import { can } from "@/lib/band/roles";
 
 export interface BandChange {
   bandId: string;
@@ -42,7 +43,7 @@ async function recipients(db: Kysely<Database>, c: BandChange, now: Date): Promi
   const listUsers = c.setlistId ? new Set(await activeShareUsers(db, c.setlistId, now)) : new Set<string>();
   for (const m of members) {
     if (m.expires_at && m.expires_at <= now.toISOString()) continue;
-    if (m.role !== "sub") out.add(m.user_id);
+    if (can(m.role, "readBook")) out.add(m.user_id);
     else if (listUsers.has(m.user_id)) out.add(m.user_id);
     else if (chartIds.size > 0 && (await sharedChartIds(db, c.bandId, m.user_id, now)).some((id) => chartIds.has(id))) out.add(m.user_id);
   }

@@ -11,6 +11,7 @@ import { fanOut } from "./push";
 import { hasSubscription } from "./push-subscriptions";
 import { computeReadiness, type DeviceReport, type Holdings, type Needed, type Readiness, type Reader } from "./readiness-model";
 import { activeShareUsers } from "./shares";
+import { can } from "@/lib/band/roles";
 
 const Id = z.string().min(1).max(64);
 
@@ -65,7 +66,7 @@ async function readers(db: Kysely<Database>, bandId: string, setlistId: string, 
     .select(["m.user_id", "m.role", "m.expires_at", "u.name", "u.email"])
     .where("m.band_id", "=", bandId)
     .execute();
-  const people = rows.filter((r) => !(r.expires_at && r.expires_at <= now.toISOString()) && (r.role !== "sub" || shared.has(r.user_id)));
+  const people = rows.filter((r) => !(r.expires_at && r.expires_at <= now.toISOString()) && (can(r.role, "readBook") || shared.has(r.user_id)));
   const reports = people.length
     ? await db.selectFrom("device_reports").selectAll().where("band_id", "=", bandId).where("user_id", "in", people.map((p) => p.user_id)).execute()
     : [];
@@ -93,7 +94,7 @@ export interface NudgeResult {
 
 /** Tells the members behind on this set list to open Pedalpoint with signal: a push, or e-mail without one. */
 export async function nudgeMembers(db: Kysely<Database>, actor: Actor | null, bandId: string, setlistId: string, userIds: string[] | undefined, now = new Date()): Promise<NudgeResult> {
-  const leader = await requireMember(db, actor, bandId, "manageMembers");
+  const leader = await requireMember(db, actor, bandId, "nudgeBand");
   const need = await needed(db, bandId, setlistId);
   const people = await readers(db, bandId, setlistId, now);
   const state = computeReadiness(need, people);

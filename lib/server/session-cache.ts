@@ -2,10 +2,17 @@ import "server-only";
 // The verified-session cache of session.ts, apart so that ending a session can empty it without
 // importing next-auth (and so tests that replace session.ts keep it).
 import type { Actor } from "./access";
+import type { SessionClaims } from "./session-version";
 
-export const verifiedSessions = new Map<string, { actor: Actor; until: number }>();
+export interface VerifiedSession {
+  actor: Actor;
+  claims: SessionClaims;
+  until: number;
+}
 
-/** Drops every remembered verification, after a session was ended. */
+export const verifiedSessions = new Map<string, VerifiedSession>();
+
+/** Drops every remembered verification, after a session was ended in this process. */
 export function forgetVerifiedSessions(): void {
   verifiedSessions.clear();
 }

@@ -45,6 +45,22 @@ export async function endSession(db: Kysely<Database>, claims: SessionClaims, en
   forgetVerifiedSessions();
 }
 
+/**
+ * Whether a session verified earlier is still live, in one indexed query: its user exists, the
+ * user's session version is the token's, and its id was not ended (by any process).
+ */
+export async function isSessionStillLive(db: Kysely<Database>, claims: SessionClaims): Promise<boolean> {
+  const row = await db
+    .selectFrom("users")
+    .select((eb) => [
+      "session_version",
+      eb.exists(eb.selectFrom("ended_sessions").select("sid").where("sid", "=", claims.sid ?? "")).as("ended"),
+    ])
+    .where("id", "=", claims.userId)
+    .executeTakeFirst();
+  return row !== undefined && row.session_version === claims.version && !row.ended;
+}
+
 /** Whether a session is still live: its user exists, its version is current, it was not ended. */
 export async function isSessionLive(db: Kysely<Database>, claims: SessionClaims, currentVersion: number): Promise<boolean> {
   if (claims.version !== currentVersion) return false;

@@ -8,10 +8,10 @@ import { MarkDataSchema, SetlistInputSchema } from "@/lib/setlist";
 import { z } from "zod";
 import { deleteMarkUnchecked, saveMarkUnchecked, toMark } from "./annotations";
 import { AppError } from "./errors";
-import { CAN } from "./roles";
 import { deleteSetlistUnchecked, loadSetlists, saveSetlistUnchecked } from "./setlists";
 import { sharedSetlistIds } from "./shares";
 import { zodIssues } from "./zod-issues";
+import { can, describePermission } from "@/lib/band/roles";
 
 export type FeedRow<T> = { id: string; op: "upsert"; data: T } | { id: string; op: "delete" };
 
@@ -26,7 +26,7 @@ export async function loadSetlistFeedRows(
   now = new Date(),
 ): Promise<FeedRow<WireSetlist>[]> {
   const unique = [...new Set(ids)];
-  const visible = membership.role === "sub" ? new Set(await sharedSetlistIds(db, membership.band_id, membership.user_id, now)) : null;
+  const visible = !can(membership.role, "readAllSetlists") ? new Set(await sharedSetlistIds(db, membership.band_id, membership.user_id, now)) : null;
   const found = await loadSetlists(db, membership.band_id, visible ? unique.filter((id) => visible.has(id)) : unique);
   return unique.map((id): FeedRow<WireSetlist> => {
     const f = found.get(id);
@@ -79,8 +79,7 @@ function parsed<T>(schema: z.ZodType<T>, data: unknown): T {
 /** Applies one set-list mutation from a device. The caller has already resolved the membership. */
 export async function pushSetlistMutation(db: Kysely<Database>, membership: Membership, m: Mutation, now = new Date()): Promise<MutationResult> {
   try {
-    const allowed: readonly string[] = CAN.editSetlists;
-    if (!allowed.includes(membership.role)) throw new AppError("forbidden", `Only the leader or an arranger can change set lists; you are a ${membership.role}.`);
+    if (!can(membership.role, "editSetlists")) throw new AppError("forbidden", `This needs ${describePermission("editSetlists")}; you are a ${membership.role} in this band.`);
     if (m.op === "delete") {
       await deleteSetlistUnchecked(db, membership.user_id, membership.band_id, m.id, now);
       return { mutationId: m.mutationId, status: "applied", revision: m.baseRevision ?? 0, data: null };

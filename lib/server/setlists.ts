@@ -19,6 +19,7 @@ import { parseInput } from "./input";
 import { loadSetlists, parseJson } from "./setlist-rows";
 import { activeShareUsers, sharedSetlistIds } from "./shares";
 import { newId, nowIso } from "./tokens";
+import { can } from "@/lib/band/roles";
 
 type Db = Kysely<Database> | Transaction<Database>;
 
@@ -41,7 +42,7 @@ async function loadOne(db: Db, bandId: string, id: string): Promise<{ row: Setli
 
 /** Throws 404 unless this member may see this set list (a sub: only while it is shared with them). */
 export async function assertCanSee(db: Db, m: Membership, setlistId: string, now = new Date()): Promise<void> {
-  if (m.role !== "sub") return;
+  if (can(m.role, "readAllSetlists")) return;
   const ids = await sharedSetlistIds(db, m.band_id, m.user_id, now);
   if (!ids.includes(setlistId)) throw notFound("That set list");
 }
@@ -49,7 +50,7 @@ export async function assertCanSee(db: Db, m: Membership, setlistId: string, now
 export async function listSetlists(db: Kysely<Database>, actor: Actor | null, bandId: string, now = new Date()): Promise<SetlistSummary[]> {
   const m = await requireMember(db, actor, bandId, "readSetlists");
   let q = db.selectFrom("setlists").selectAll().where("band_id", "=", bandId).where("deleted_at", "is", null);
-  if (m.role === "sub") {
+  if (!can(m.role, "readAllSetlists")) {
     const ids = await sharedSetlistIds(db, bandId, m.user_id, now);
     if (ids.length === 0) return [];
     q = q.where("id", "in", ids);

@@ -11,6 +11,7 @@ import { recordChange } from "./changes";
 import { AppError, notFound } from "./errors";
 import { parseInput } from "./input";
 import { appUrl, hashToken, newId, newToken, nowIso } from "./tokens";
+import { can } from "@/lib/band/roles";
 
 type Db = Kysely<Database> | Transaction<Database>;
 
@@ -222,7 +223,7 @@ async function attachSub(trx: Transaction<Database>, share: ShareRow, userId: st
     .where("user_id", "=", userId)
     .executeTakeFirst();
   const active = existing ? await findMembership(trx, userId, share.band_id, now) : null;
-  if (active && active.role !== "sub") return; // a member already reads the whole book
+  if (active && can(active.role, "readBook")) return; // a member already reads the whole book
   // A sub whose access already runs longer keeps it.
   if (active && (active.expires_at === null || active.expires_at >= share.expires_at)) return;
   if (existing) {

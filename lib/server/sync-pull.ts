@@ -13,6 +13,7 @@ import { sharedSetlistIds } from "./shares";
 import { loadAnnotationFeedRows, loadSetlistFeedRows, type FeedRow } from "./setlist-feed";
 import { loadAttachments, loadCharts } from "./sync-rows";
 import { PullBody, cachedPull, handleTag, keepPull } from "./pull-cache";
+import { can } from "@/lib/band/roles";
 
 const PULL_ENTITIES = new Set(["chart", "setlist", "annotation", "attachment"]);
 
@@ -86,7 +87,7 @@ export async function pullBody(db: Kysely<Database>, actor: Actor | null, bandId
   const userId = m.user_id;
   const [band] = await bandCursorRow(db, bandId);
   if (!band) throw new AppError("not_found", "That band was not found.");
-  const visible = m.role === "sub" ? await visibleToSub(db, bandId, userId, now) : null;
+  const visible = !can(m.role, "readBook") ? await visibleToSub(db, bandId, userId, now) : null;
   const scope = scopeOf(m, visible);
   const rescoped = q.scope !== undefined && q.scope !== scope;
   const since = rescoped ? 0 : q.since;
@@ -95,7 +96,7 @@ export async function pullBody(db: Kysely<Database>, actor: Actor | null, bandId
     `"membership":${JSON.stringify({ bandId, role: m.role, instrument: m.instrument, expiresAt: m.expires_at })}`;
   // Up to date (the usual poll): the band's cursor says there is nothing after `since`, so the feed
   // is not read. A leader's very first pull still goes the long way, for the roster.
-  if (since >= band.head && (since > 0 || m.role !== "leader")) {
+  if (since >= band.head && (since > 0 || !can(m.role, "manageMembers"))) {
     const total = q.count === "1" ? `,"total":${visible ? visible.charts.size + visible.setlists.size : 0}` : "";
     return new PullBody(`${head(total)},"changes":[]}`);
   }
@@ -178,7 +179,7 @@ async function buildPage(db: Kysely<Database>, m: Membership, bandId: string, ba
   }
 
   const total = ask.count ? (visible ? visible.charts.size + visible.setlists.size : await feedRemainingCount(db, bandId, userId, since, [...PULL_ENTITIES])) : undefined;
-  const withRoster = m.role === "leader" && (since === 0 || membershipChanged);
+  const withRoster = can(m.role, "manageMembers") && (since === 0 || membershipChanged);
   const membership = { bandId, role: m.role, instrument: m.instrument, expiresAt: m.expires_at };
   let out = `{"seq":${seq},"more":${more},"scope":${JSON.stringify(scope)}`;
   if (total !== undefined) out += `,"total":${total}`;

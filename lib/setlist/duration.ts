@@ -1,7 +1,7 @@
 // How long a tune and a set run: bars as played × beats per bar × 60 / tempo. Pure.
 // A tune is played as: intro, head in, each soloist's choruses over the form, head out, ending.
 // With no solo order the head is played once (a ballad or a feature straight through).
-import { playingOrder } from "@/lib/chart/form";
+import { playingOrder } from "@/lib/chart/as-played";
 import { generateIntro } from "@/lib/chart/intro";
 import type { Bar, Chart, IntroChoice } from "@/lib/chart/model";
 import type { EndingChoice, SetlistEntry } from "./model";

@@ -1,6 +1,7 @@
 // Bodies for bands, members and invites.
 import { z } from "zod";
-import { EmailSchema, IdSchema, InstrumentIdSchema, IsoDateTimeSchema, RoleSchema } from "./common";
+import { RoleSchema } from "@/lib/band/roles";
+import { EmailSchema, IdSchema, InstrumentIdSchema, IsoDateTimeSchema } from "./common";
 
 export const BandCreateSchema = z
   .object({

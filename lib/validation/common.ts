@@ -1,11 +1,9 @@
-// Small shared schemas for ids, e-mail addresses, roles and instruments.
+// Small shared schemas for ids, e-mail addresses and instruments (roles: lib/band/roles).
 import { z } from "zod";
 
 export const INSTRUMENT_IDS = ["concert", "concert-bass", "bb", "eb", "f"] as const;
 export const InstrumentIdSchema = z.enum(INSTRUMENT_IDS, { message: "Choose an instrument: concert, concert-bass, bb, eb or f" });
 export type InstrumentId = z.infer<typeof InstrumentIdSchema>;
-
-export const RoleSchema = z.enum(["leader", "arranger", "player", "sub"], { message: "Choose a role: leader, arranger, player or sub" });
 
 export const EmailSchema = z
   .string()

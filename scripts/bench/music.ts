@@ -1,7 +1,7 @@
 // Music-core benchmark: a generated 1,000-chart book through parse → analyse → intro → arrangement.
 // Prints the cost per chart (median, p95, CPU time) and the total. Run: npx tsx scripts/bench/music.ts [charts]
 import { performance } from "node:perf_hooks";
-import { analyzeTop, arrange, generateIntro, parseChartText, suggestIntros, INTRO_KINDS } from "@/lib/chart";
+import { analyseTop, arrange, generateIntro, parseChartText, suggestIntros, INTRO_KINDS } from "@/lib/chart";
 import { INSTRUMENT_IDS } from "@/lib/music";
 
 const COUNT = Number(process.argv[2] ?? 1000);
@@ -68,7 +68,7 @@ texts.forEach((text, i) => {
   const t0 = performance.now();
   const chart = parseChartText(text);
   const t1 = performance.now();
-  analyzeTop(chart);
+  analyseTop(chart);
   suggestIntros(chart);
   const t2 = performance.now();
   const intro = generateIntro(chart, { kind: INTRO_KINDS[i % INTRO_KINDS.length]!, tritoneSub: i % 2 === 0 });

@@ -147,3 +147,19 @@ test("item 22: a PDF part is replaced under its name, then deleted after an inli
   await expect(row()).toHaveCount(0, { timeout: 30_000 });
   await expect(page.getByTestId("part-row")).toHaveCount(before - 1);
 });
+
+test("a score chart text cannot hold as written is imported with the changed bars named", async ({ page }) => {
+  const leader = demoLeader();
+  await signIn(page, leader.email, leader.password, `/bands/${bandId}`);
+  await page.goto(`/bands/${bandId}/import`);
+  // MusicXML test suite 61i: one 4/4 measure holding a single quarter note (not a pickup: the piece has one bar)
+  await page.getByTestId("import-files").setInputFiles(path.join(FIXTURES, "musicxml/suite/61i-Lyrics-Chords.xml"));
+  const item = page.getByTestId("import-item").filter({ hasText: "61i-Lyrics-Chords.xml" });
+  await expect(item).toHaveAttribute("data-phase", "ready", { timeout: 30_000 });
+  const changed = item.getByTestId("import-changed");
+  await expect(changed).toContainText("Imported with changes");
+  await expect(changed).toContainText("measures shorter than their time signature: filled with rests (1) — bar 1");
+  await expect(item.getByTestId("import-refused")).toHaveCount(0);
+  await item.getByTestId("import-save").click();
+  await expect(item.getByTestId("import-saved")).toBeVisible({ timeout: 30_000 });
+});

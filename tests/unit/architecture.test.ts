@@ -13,6 +13,14 @@ function sourceFiles(dir: string): string[] {
     .map((d) => path.join(d.parentPath, d.name));
 }
 
+/** Every import, type-only ones too: a type from db/ in browser code still ties it to the database. */
+function allImports(file: string): string[] {
+  const text = fs.readFileSync(file, "utf8");
+  return [...text.matchAll(/(?:import|export)[^'"]*?from\s+["']([^"']+)["']|import\(\s*["']([^"']+)["']\s*\)/g)].map((m) => m[1] ?? m[2] ?? "");
+}
+
+const rel = (f: string) => path.relative(root, f);
+
 function imports(file: string): string[] {
   // Type-only imports vanish at compile time, so they do not count.
   const text = fs.readFileSync(file, "utf8").replace(/^import type .*$/gm, "");
@@ -46,5 +54,28 @@ describe("the pure core", () => {
       .filter((f) => !/^import "server-only";/m.test(fs.readFileSync(f, "utf8")))
       .map((f) => path.relative(root, f));
     expect(unmarked).toEqual([]);
+  });
+});
+
+describe("one way to do each thing", () => {
+  it("roles and permissions come from lib/band/roles: components and lib/offline import nothing from db/", () => {
+    const bad = ["components", "lib/offline"].flatMap(sourceFiles).flatMap((f) =>
+      allImports(f).filter((s) => s === "@/db" || s.startsWith("@/db/")).map((s) => `${rel(f)} → ${s}`),
+    );
+    expect(bad).toEqual([]);
+  });
+
+  it("nobody declares the roles or spells out a role check by hand outside lib/band/roles", () => {
+    const own = path.join("lib", "band", "roles.ts");
+    const offenders = ["app", "components", "lib", "db"].flatMap(sourceFiles)
+      .filter((f) => rel(f) !== own && !rel(f).startsWith(path.join("db", "seed")))
+      .filter((f) => {
+        const text = fs.readFileSync(f, "utf8");
+        return /\brole\s*[!=]==\s*["'](leader|arranger|player|sub)["']/.test(text) && !/lastLeader|assertAnotherLeader/.test(text)
+          || /["']leader["']\s*\|\s*["']arranger["']/.test(text)
+          || /\[\s*["']leader["'],\s*["']arranger["']/.test(text);
+      })
+      .map(rel);
+    expect(offenders).toEqual([]);
   });
 });

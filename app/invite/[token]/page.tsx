@@ -2,12 +2,13 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { ready } from "@/db";
 import { Notice } from "@/components/ui/Notice";
-import { ROLE_HINTS, roleLabel } from "@/components/ui/labels";
+import { ROLE_HINTS } from "@/components/ui/labels";
 import { previewInvite } from "@/lib/server/members";
 import { getActor } from "@/lib/server/session";
 import { findUserByEmail } from "@/lib/server/users";
 import { SignUpForm } from "@/app/(auth)/_forms/SignUpForm";
 import { AcceptInvite } from "./AcceptInvite";
+import { aRole } from "@/lib/band/roles";
 
 export const metadata: Metadata = { title: "Your invite" };
 export const dynamic = "force-dynamic";
@@ -40,12 +41,11 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
   }
   const actor = await getActor();
   const here = `/invite/${token}`;
-  const role = roleLabel(invite.role).toLowerCase();
   return (
     <Shell>
       <h1 className="mb-2 text-2xl font-bold tracking-tight text-ink">Join {invite.bandName}</h1>
       <p className="mb-6 text-ink-muted">
-        You are invited as {role === "arranger" ? "an" : "a"} {role}: {ROLE_HINTS[invite.role]}.
+        You are invited as {aRole(invite.role)}: {ROLE_HINTS[invite.role]}.
       </p>
       {actor && actor.email.toLowerCase() === invite.email ? (
         <AcceptInvite token={token} bandId={invite.bandId} bandName={invite.bandName} />

@@ -6,7 +6,7 @@ import { Button } from "@/components/ui/Button";
 import { Field, SelectField } from "@/components/ui/Field";
 import { Notice } from "@/components/ui/Notice";
 import { INSTRUMENT_OPTIONS, ROLE_HINTS, ROLE_OPTIONS } from "@/components/ui/labels";
-import type { Role } from "@/db/schema";
+import { accessEnds, type Role } from "@/lib/band/roles";
 import { IDLE, type MemberFormState } from "./form-state";
 import { LocalDateTime } from "./LocalDateTime";
 
@@ -62,7 +62,7 @@ export function InviteForm({ action, bandId }: { action: Action; bandId?: string
         data-testid="invite-role"
       />
       <SelectField label="Part they read" name="instrument" defaultValue="concert" options={INSTRUMENT_OPTIONS} error={state.fields.instrument} data-testid="invite-instrument" />
-      {role === "sub" ? (
+      {accessEnds(role) ? (
         <LocalDateTime
           name="accessExpiresAt"
           label="Access ends (optional)"

@@ -4,7 +4,7 @@ import { useActionState, useState } from "react";
 import { Button } from "@/components/ui/Button";
 import { SelectField } from "@/components/ui/Field";
 import { formatDateTime, INSTRUMENT_OPTIONS, ROLE_OPTIONS, roleLabel } from "@/components/ui/labels";
-import type { Role } from "@/db/schema";
+import { accessEnds, type Role } from "@/lib/band/roles";
 import { IDLE, type MemberFormState } from "./form-state";
 import { LocalDateTime } from "./LocalDateTime";
 
@@ -63,7 +63,7 @@ export function MemberRow({ member, isMe, update, remove }: { member: RosterMemb
           options={INSTRUMENT_OPTIONS}
           error={saved.fields.instrument}
         />
-        {role === "sub" ? (
+        {accessEnds(role) ? (
           <LocalDateTime name="expiresAt" label="Access ends (optional)" initial={member.expiresAt} error={saved.fields.expiresAt} />
         ) : (
           <p className="self-center text-sm text-ink-muted">No end to access</p>

@@ -2,9 +2,9 @@
 import { describe, expect, it } from "vitest";
 import { arrange, lastPassBars, parseChartText, serializeChart } from "@/lib/chart";
 import { ChartTextError } from "@/lib/chart/text-error";
-import { barsAsPlayed, playingOrder } from "@/lib/chart/form";
+import { barsAsPlayed, playingOrder } from "@/lib/chart/as-played";
 import { endingLabel, parseEndingPasses } from "@/lib/chart/endings";
-import { playedBars } from "@/lib/accompaniment/form";
+import { playedBars } from "@/lib/accompaniment/as-played";
 import { barsPlayedCount } from "@/lib/setlist";
 import { layoutChart } from "@/lib/render/layout";
 

@@ -1,27 +1,27 @@
 import { describe, expect, it } from "vitest";
-import { INTRO_KINDS, IntroChoiceSchema, analyzeTop, generateIntro, suggestIntros, type Bar } from "@/lib/chart";
+import { INTRO_KINDS, IntroChoiceSchema, analyseTop, generateIntro, suggestIntros, type Bar } from "@/lib/chart";
 import { AWAY, BLUES, MINOR, ON_TONIC, SHORT, WITH_INTRO } from "./charts";
 
 const symbols = (bars: Bar[]) => bars.map((b) => b.chords.map((c) => c.symbol).join(" "));
 
 describe("the top of the form", () => {
   it("finds a tune starting on its tonic", () => {
-    const top = analyzeTop(ON_TONIC);
+    const top = analyseTop(ON_TONIC);
     expect([top.symbol, top.numeral, top.function, top.startsOnTonic]).toEqual(["Fmaj7", "Imaj7", "tonic", true]);
   });
 
   it("finds a tune starting on ii, away from the tonic (ii is a subdominant chord: tonal Key.majorKey functions)", () => {
-    const top = analyzeTop(AWAY);
+    const top = analyseTop(AWAY);
     expect([top.numeral, top.function, top.startsOnTonic]).toEqual(["ii7", "subdominant", false]);
     expect(top.description).toMatch(/away from the tonic/);
   });
 
   it("reads a blues I7 as the tonic (common practice)", () => {
-    expect(analyzeTop(BLUES).startsOnTonic).toBe(true);
+    expect(analyseTop(BLUES).startsOnTonic).toBe(true);
   });
 
   it("reads a minor tune's i7", () => {
-    expect(analyzeTop(MINOR).numeral).toBe("i7");
+    expect(analyseTop(MINOR).numeral).toBe("i7");
   });
 });
 

@@ -43,6 +43,21 @@ describe("exporting a set-list entry", () => {
     expect(back.sections[0]!.bars[0]!.chords[0]!.symbol).toBe("Ebmaj7");
   });
 
+  it("writes the entry's tag: the form's last 2 bars again, inside repeats played 3 times (MusicXML 4.0 repeat@times)", async () => {
+    const { xml } = await exportChartMusicXml(db, cast.player, cast.bandId, chartId, "concert", { setlistId, entryId });
+    const measures = child(parseXml(xml), "part")!.children.filter((c) => c.name === "measure");
+    // 2 intro bars (ii–V) + the 4-bar form in E♭ + the 2 tag bars
+    expect(measures).toHaveLength(8);
+    const repeatOf = (m: (typeof measures)[number]) =>
+      m.children.filter((c) => c.name === "barline").flatMap((b) => b.children.filter((c) => c.name === "repeat").map((r) => r.attrs));
+    expect(repeatOf(measures[6]!)).toEqual([{ direction: "forward" }]);
+    expect(repeatOf(measures[7]!)).toEqual([{ direction: "backward", times: "3" }]);
+    // the tag repeats the form's last two bars (Cmaj7 Am7 Dm7 G7 in C → Fm7 Bb7 in E♭)
+    const back = importScoreFile(new TextEncoder().encode(xml)).chart.sections.flatMap((sec) => sec.bars);
+    expect(back.slice(-2).map((b) => b.chords[0]!.symbol)).toEqual(["Fm7", "Bb7"]);
+    expect(back[back.length - 1]!.repeatTimes).toBe(3);
+  });
+
   it("an entry that is not this chart's is a 404", async () => {
     const err = await appError(() => exportChartMusicXml(db, cast.player, cast.bandId, chartId, "concert", { setlistId, entryId: randomUUID() }));
     expect(err.status).toBe(404);

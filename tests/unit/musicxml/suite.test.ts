@@ -2,7 +2,7 @@
 // each expectation written out by hand from the file named in the test.
 import { describe, expect, it } from "vitest";
 import { parseChartText, serializeChart } from "@/lib/chart";
-import { playingOrder } from "@/lib/chart/form";
+import { playingOrder } from "@/lib/chart/as-played";
 import { exportMusicXml, importScoreFile, MusicXmlError } from "@/lib/musicxml";
 import { invalid, validateAll } from "./xmllint";
 import { fixture, suite } from "./helpers";

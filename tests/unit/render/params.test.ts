@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { chartQuery, parseChartParams } from "@/components/chart/params";
+import { chartQuery, parseReadingChoices } from "@/components/chart/params";
 
-const read = (q: string) => parseChartParams(new URLSearchParams(q));
+const read = (q: string) => parseReadingChoices(new URLSearchParams(q));
 
 describe("chart address parameters", () => {
   it("reads the part, a singer's key and an intro with its options", () => {

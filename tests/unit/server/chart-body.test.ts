@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { prepareChart } from "@/lib/server/chart-body";
 import { AppError } from "@/lib/server/errors";
+import { MAX_CHART_TEXT_CHARS, MAX_CHART_TEXT_LINES } from "@/lib/chart";
 
 const fields = { title: "Test Form", composer: "", key: "F", meter: "3/4", tempo: null, feel: "" };
 
@@ -21,5 +22,16 @@ describe("preparing a chart from the form", () => {
       expect(err).toBeInstanceOf(AppError);
       expect((err as AppError).details?.fields?.[0]).toMatchObject({ field: "sourceText", line: 2 });
     }
+  });
+
+  it("accepts a text exactly at the size limits although the form's header lines are added in front", () => {
+    const lines = ["A:"];
+    while (lines.length < MAX_CHART_TEXT_LINES) lines.push(lines.length % 500 === 0 ? `S${lines.length}:` : "| F |");
+    const body = lines.join("\n");
+    const sourceText = body + " ".repeat(MAX_CHART_TEXT_CHARS - body.length);
+    expect(sourceText.length).toBe(MAX_CHART_TEXT_CHARS);
+    const p = prepareChart({ ...fields, meter: "4/4", sourceText });
+    expect(p.body.sections.length).toBe(10);
+    expect(() => prepareChart({ ...fields, meter: "4/4", sourceText: `${sourceText} ` })).toThrow(/too long/);
   });
 });

@@ -6,7 +6,8 @@ import path from "node:path";
 import { randomUUID } from "node:crypto";
 import type { Kysely } from "kysely";
 import { openTestDatabase } from "@/db/test-database";
-import type { Database, Role } from "@/db/schema";
+import type { Database } from "@/db/schema";
+import type { Role } from "@/lib/band/roles";
 import type { Actor } from "@/lib/server/access";
 import { AppError } from "@/lib/server/errors";
 

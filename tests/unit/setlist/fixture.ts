@@ -1,7 +1,8 @@
 // An in-memory database with one invented band, its people and two invented charts.
 import type { Kysely } from "kysely";
 import { openTestDatabase } from "@/db/test-database";
-import type { Database, Role } from "@/db/schema";
+import type { Database } from "@/db/schema";
+import type { Role } from "@/lib/band/roles";
 import { ChartSchema, type Bar, type Chart } from "@/lib/chart/model";
 import type { Actor } from "@/lib/server/access";
 

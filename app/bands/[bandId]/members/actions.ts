@@ -8,6 +8,7 @@ import { inviteMember, removeMember, updateMember } from "@/lib/server/members";
 import { getActor } from "@/lib/server/session";
 import { IdSchema } from "@/lib/validation/common";
 import type { MemberFormState } from "@/components/library/members/form-state";
+import { aRole, accessEnds } from "@/lib/band/roles";
 
 function text(form: FormData, name: string): string {
   const v = form.get(name);
@@ -38,7 +39,7 @@ export async function inviteAction(bandId: string, _prev: MemberFormState, form:
       role,
       instrument: text(form, "instrument") || "concert",
       // An end time only means something for a sub.
-      accessExpiresAt: role === "sub" && until ? until : null,
+      accessExpiresAt: accessEnds(role) && until ? until : null,
     });
     revalidatePath(`/bands/${band}/members`);
     return {
@@ -61,10 +62,10 @@ export async function updateMemberAction(bandId: string, userId: string, _prev: 
     const updated = await updateMember(await ready(), await getActor(), band, user, {
       role,
       instrument: text(form, "instrument"),
-      expiresAt: role === "sub" && until ? until : null,
+      expiresAt: accessEnds(role) && until ? until : null,
     });
     revalidatePath(`/bands/${band}/members`);
-    return { status: "ok", message: `Saved: ${updated.name} is now ${updated.role === "arranger" ? "an" : "a"} ${updated.role}.`, fields: {} };
+    return { status: "ok", message: `Saved: ${updated.name} is now ${aRole(updated.role)}.`, fields: {} };
   } catch (err) {
     return failed(err);
   }

@@ -13,6 +13,7 @@ import { listInvites, listMembers } from "@/lib/server/members";
 import { getActor } from "@/lib/server/session";
 import { IdSchema } from "@/lib/validation/common";
 import { inviteAction, removeMemberAction, updateMemberAction } from "./actions";
+import { byRole } from "@/lib/band/roles";
 
 export const metadata: Metadata = { title: "Members" };
 
@@ -51,8 +52,7 @@ export default async function MembersPage({ params }: { params: Promise<{ bandId
 
   const { band, invites } = data;
   // Leaders first, then arrangers, players and subs; by name within each.
-  const order = ["leader", "arranger", "player", "sub"];
-  const members = [...data.members].sort((a, b) => order.indexOf(a.role) - order.indexOf(b.role) || a.name.localeCompare(b.name));
+  const members = [...data.members].sort((a, b) => byRole(a.role, b.role) || a.name.localeCompare(b.name));
   return (
     <PageColumn>
       <PageTitle lead={`${band.name}: who is in the band, what they do and the part they read.`}>Members</PageTitle>

@@ -100,7 +100,7 @@ const FUNCTION_WORDS: Record<HarmonicFunction, string> = {
   none: "no chord",
 };
 
-export function analyzeTop(chart: Chart): TopAnalysis {
+export function analyseTop(chart: Chart): TopAnalysis {
   const key = parseKey(chart.key);
   const first = firstChord(chart);
   const barOne = chart.sections[0]?.bars[0]?.chords[0]?.symbol;

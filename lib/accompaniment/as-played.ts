@@ -1,7 +1,7 @@
 // The bars in the order a band plays them: the intro, then the form with its repeats taken the
 // right number of times and each ending on its own pass, `%` bars filled in, then tonight's ending
 // (a tag plays the last bars again; a vamp-out repeats them). Pure.
-import { playingOrder } from "@/lib/chart/form";
+import { playingOrder } from "@/lib/chart/as-played";
 import type { ChordSlot, PerformanceBar } from "@/lib/chart/model";
 import type { EndingChoice } from "@/lib/setlist/model";
 import type { PlayedBar } from "./types";
