@@ -87,6 +87,9 @@ export interface WireAttachment {
   type: string;
   pages: number | null;
   createdAt: string;
+  /** The part's name and instrument id (null on parts uploaded before they were asked). */
+  partName?: string | null;
+  instrument?: string | null;
 }
 
 export interface WireMember {
