@@ -14,7 +14,7 @@ import { peek, receiveFile, type IncomingFile } from "./upload-stream";
 import { requireChartReader } from "./chart-access";
 import { partStore, PartTooLarge, type StoredPart } from "./part-store";
 import { newId, nowIso } from "./tokens";
-import { zodIssues } from "./zod-issues";
+import { parseInput } from "./input";
 import { z } from "zod";
 import { INSTRUMENT_IDS } from "@/lib/music/instruments";
 import { IdSchema } from "@/lib/validation/common";
@@ -97,10 +97,7 @@ export type PartDetails = z.infer<typeof PartDetailsSchema>;
 /** The part's details from the form; a bare file (older clients, scripts) keeps its file name only. */
 export function readPartDetails(fields: Record<string, string>): PartDetails | undefined {
   if (Object.keys(fields).length === 0) return undefined;
-  const r = PartDetailsSchema.safeParse(fields);
-  if (r.success) return r.data;
-  const issues = zodIssues(r.error);
-  throw new AppError("unprocessable", issues[0]?.message ?? "The part's details could not be read.", { fields: issues });
+  return parseInput(PartDetailsSchema, fields, { fallback: "The part's details could not be read." });
 }
 
 async function requirePart(db: Kysely<Database>, bandId: string, chartId: string, id: string): Promise<void> {
