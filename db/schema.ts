@@ -142,6 +142,10 @@ export interface AttachmentsTable {
   size: number;
   type: string; // MIME type
   pages: number | null;
+  /** What the part is called ("2nd trumpet"); null on parts uploaded before it was asked. */
+  part_name: string | null;
+  /** The instrument id the part is for; null on older parts. */
+  instrument: string | null;
   uploaded_by: string;
   created_at: string;
   deleted_at: string | null;

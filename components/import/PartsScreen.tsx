@@ -6,6 +6,9 @@ import Link from "next/link";
 import { useRouter, useSearchParams } from "next/navigation";
 import { useEffect, useState } from "react";
 import { Button } from "@/components/ui/Button";
+import { ConfirmInline } from "@/components/ui/Confirm";
+import { Field, SelectField } from "@/components/ui/Field";
+import { INSTRUMENT_OPTIONS, instrumentLabel } from "@/components/ui/labels";
 import { Notice } from "@/components/ui/Notice";
 import { PageColumn, PageTitle } from "@/components/ui/Page";
 import { chartParts, fetchMissingAttachmentFiles } from "@/lib/offline/attachments";
@@ -28,6 +31,12 @@ export function PartsScreen() {
   const membership = useMembership(bandId ?? "");
   const parts = useLiveQuery(() => (chartId ? chartParts(getLocalBook(), chartId) : []), [chartId]);
   const [upload, setUpload] = useState<{ progress: number } | { error: string } | null>(null);
+  // Asked before the file: what the part is called and whom it is for. Replacing keeps both.
+  const [partName, setPartName] = useState("");
+  const [instrument, setInstrument] = useState<string>("concert");
+  const [replacing, setReplacing] = useState<{ id: string; label: string } | null>(null);
+  const [deleting, setDeleting] = useState<string | null>(null);
+  const [done, setDone] = useState("");
 
   useEffect(() => {
     if (!bandId || !chartId || !online) return;
@@ -40,19 +49,42 @@ export function PartsScreen() {
     `/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(chartId)}/bandstand?part=${encodeURIComponent(part)}`;
 
   const canUpload = can(membership?.role, "editCharts");
+  const base = `/api/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(chartId)}/attachments`;
+  const named = partName.trim() !== "";
   const onFile = async (file: File | undefined) => {
     if (!file) return;
+    if (!named) return setUpload({ error: "Give the part a name first, such as “2nd trumpet”." });
     setUpload({ progress: 0 });
+    setDone("");
     try {
-      const url = `/api/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(chartId)}/attachments`;
-      const answer = await uploadFile(url, file, (progress) => setUpload({ progress }));
+      const fields: Record<string, string> = { partName: partName.trim(), instrument, ...(replacing ? { replaces: replacing.id } : {}) };
+      const answer = await uploadFile(base, file, (progress) => setUpload({ progress }), fields);
       if (answer.status !== 201) return setUpload({ error: errorMessage(answer.body, `The server refused this file (${answer.status}).`) });
       setUpload(null);
+      setDone(replacing ? `${replacing.label} replaced.` : `${partName.trim()} added.`);
+      setReplacing(null);
+      setPartName("");
       await syncNow(bandId);
       await fetchMissingAttachmentFiles(getLocalBook(), bandId, { chartId });
     } catch (err) {
       setUpload({ error: err instanceof Error ? err.message : "The upload failed." });
     }
+  };
+
+  const startReplace = (p: { id: string; partName?: string | null; instrument?: string | null; filename: string }) => {
+    setReplacing({ id: p.id, label: p.partName ?? p.filename });
+    setPartName(p.partName ?? p.filename.replace(/\.[a-z0-9]+$/i, ""));
+    setInstrument(p.instrument ?? "concert");
+    setUpload(null);
+    setDone("");
+    document.getElementById("part-name")?.focus();
+  };
+  const remove = async (id: string, label: string) => {
+    const res = await fetch(`${base}/${encodeURIComponent(id)}`, { method: "DELETE" });
+    if (!res.ok) return setUpload({ error: errorMessage(await res.json().catch(() => null), `The part could not be deleted (${res.status}).`) });
+    setDeleting(null);
+    setDone(`${label} deleted.`);
+    await syncNow(bandId);
   };
 
   return (
@@ -63,17 +95,24 @@ export function PartsScreen() {
       {canUpload ? (
         <section className="mb-6 flex flex-col gap-2" aria-label="Add a part">
           <Notice testId="rights-caution">{RIGHTS_CAUTION}</Notice>
+          <h2 className="text-lg font-semibold">{replacing ? `Replace ${replacing.label}` : "Add a part"}</h2>
+          <Field id="part-name" label="Part name" value={partName} maxLength={80} required onChange={(e) => setPartName(e.target.value)} placeholder="2nd trumpet" hint="What the players call it; asked before the file." data-testid="part-name" />
+          <SelectField label="For" value={instrument} onChange={(e) => setInstrument(e.target.value)} options={INSTRUMENT_OPTIONS} data-testid="part-instrument" />
           <label htmlFor="part-file" className="font-semibold">
-            Add a part
+            {replacing ? "The new file" : "The file"}
           </label>
-          <input id="part-file" type="file" accept="application/pdf,image/png,image/jpeg,.pdf,.png,.jpg,.jpeg" disabled={!online}
+          <input id="part-file" type="file" accept="application/pdf,image/png,image/jpeg,.pdf,.png,.jpg,.jpeg" disabled={!online || !named}
+            aria-describedby={named ? undefined : "part-file-why"}
             className="block min-h-11 w-full rounded-md border border-ink-muted bg-white p-2" data-testid="part-file"
             onChange={(e) => {
               void onFile(e.target.files?.[0]);
               e.target.value = "";
             }} />
+          {!named ? <p id="part-file-why" className="text-sm text-ink-muted">Name the part to choose its file.</p> : null}
+          {replacing ? <Button tone="quiet" onClick={() => { setReplacing(null); setPartName(""); }} data-testid="part-replace-cancel">Keep {replacing.label} as it is</Button> : null}
           {upload && "progress" in upload ? <progress className="w-full" max={1} value={upload.progress} aria-label="Upload progress" /> : null}
           {upload && "error" in upload ? <Notice kind="error" testId="part-error">{upload.error}</Notice> : null}
+          <p aria-live="polite" className="text-sm" data-testid="part-status">{done}</p>
           {!online ? <p className="text-sm text-ink-muted">Adding a part needs a connection; reading the parts below does not.</p> : null}
         </section>
       ) : null}
@@ -84,15 +123,37 @@ export function PartsScreen() {
           {parts.map((p) => (
             <li key={p.id} className="flex flex-wrap items-center justify-between gap-3 rounded-lg border border-ink-soft bg-white p-3" data-testid="part-row">
               <div>
-                <p className="font-semibold">{p.filename}</p>
+                <p className="font-semibold" data-testid="part-title">{p.partName ?? p.filename}</p>
+                {p.partName ? <p className="text-sm" data-testid="part-for">For {instrumentLabel(p.instrument ?? "concert")} · {p.filename}</p> : null}
                 <p className="text-sm text-ink-muted">
                   {p.type === "application/pdf" ? `PDF${p.pages ? `, ${p.pages} page${p.pages === 1 ? "" : "s"}` : ""}` : "Image"} · {sizeText(p.size)} ·{" "}
                   <span data-testid="part-offline">{p.offline ? "kept on this device" : online ? "downloading…" : "not on this device yet"}</span>
                 </p>
               </div>
-              <Button onClick={() => router.push(onStand(p.id))} disabled={!p.offline && !online} data-testid="part-open">
-                Open on the stand
-              </Button>
+              <div className="flex flex-wrap gap-2">
+                <Button onClick={() => router.push(onStand(p.id))} disabled={!p.offline && !online} data-testid="part-open">
+                  Open on the stand
+                </Button>
+                {canUpload ? (
+                  <>
+                    <Button tone="secondary" disabled={!online} onClick={() => startReplace(p)} aria-label={`Replace ${p.partName ?? p.filename}`} data-testid="part-replace">
+                      Replace
+                    </Button>
+                    <Button tone="danger" disabled={!online} onClick={() => setDeleting(p.id)} aria-label={`Delete ${p.partName ?? p.filename}`} data-testid="part-delete">
+                      Delete
+                    </Button>
+                  </>
+                ) : null}
+              </div>
+              {deleting === p.id ? (
+                <ConfirmInline
+                  question={`Delete ${p.partName ?? p.filename} for everyone in the band?`}
+                  confirmLabel="Delete the part"
+                  onConfirm={() => void remove(p.id, p.partName ?? p.filename)}
+                  onCancel={() => setDeleting(null)}
+                  testId="part-delete-confirm"
+                />
+              ) : null}
             </li>
           ))}
         </ul>

@@ -5,7 +5,7 @@ export interface UploadAnswer {
   body: unknown;
 }
 
-export function uploadFile(url: string, file: File, onProgress: (fraction: number) => void): Promise<UploadAnswer> {
+export function uploadFile(url: string, file: File, onProgress: (fraction: number) => void, fields: Record<string, string> = {}): Promise<UploadAnswer> {
   return new Promise((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhr.open("POST", url);
@@ -14,6 +14,7 @@ export function uploadFile(url: string, file: File, onProgress: (fraction: numbe
     xhr.onload = () => resolve({ status: xhr.status, body: xhr.response as unknown });
     xhr.onerror = () => reject(new Error("The upload did not reach the server. Check the connection and try again."));
     const form = new FormData();
+    for (const [k, v] of Object.entries(fields)) form.append(k, v);
     form.append("file", file);
     xhr.send(form);
   });

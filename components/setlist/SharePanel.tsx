@@ -5,6 +5,7 @@ import { useCallback, useEffect, useState } from "react";
 import { Button } from "@/components/ui/Button";
 import { Field, TextAreaField } from "@/components/ui/Field";
 import { Notice } from "@/components/ui/Notice";
+import { readApiError } from "@/components/ui/api-error";
 import { SHARING_CAUTION, type ShareState, type WireShare } from "@/lib/setlist";
 import { fromLocalInput, gigWhen, toLocalInput } from "./datetime";
 
@@ -60,10 +61,11 @@ export function SharePanel({ bandId, setlistId, startsAt }: { bandId: string; se
         headers: { "content-type": "application/json" },
         body: JSON.stringify({ email, expiresAt: fromLocalInput(until), message }),
       });
-      const body = (await res.json()) as { mailed?: boolean; error?: { message: string; fields?: { field: string }[] } };
       if (!res.ok) {
-        setResult({ kind: "error", text: body.error?.message ?? "Not shared.", field: body.error?.fields?.[0]?.field });
+        const error = await readApiError(res, "Not shared.");
+        setResult({ kind: "error", text: error.message, field: error.field });
       } else {
+        const body = (await res.json()) as { mailed?: boolean };
         setResult({ kind: "success", text: body.mailed ? `Sent to ${email}.` : `Shared, but the e-mail could not be sent. Try again later.` });
         setEmail("");
         setMessage("");
@@ -77,7 +79,11 @@ export function SharePanel({ bandId, setlistId, startsAt }: { bandId: string; se
   }
 
   async function withdraw(id: string) {
-    await fetch(`${base}/${encodeURIComponent(id)}`, { method: "DELETE" }).catch(() => null);
+    setResult(null);
+    const res = await fetch(`${base}/${encodeURIComponent(id)}`, { method: "DELETE" }).catch(() => null);
+    // A withdraw that did not happen is said: the sub still has the set list.
+    if (!res) setResult({ kind: "error", text: "No signal: the share was not withdrawn. Try again when you are online." });
+    else if (!res.ok) setResult({ kind: "error", text: `Not withdrawn: ${(await readApiError(res, "the server refused.")).message}` });
     load();
   }
 

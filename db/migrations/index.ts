@@ -7,6 +7,7 @@ import * as m004 from "./004_sync_feed_cover";
 import * as m005 from "./005_security";
 import * as m006 from "./006_push_readiness_calls";
 import * as m007 from "./007_desk_gig_lengths_archive";
+import * as m008 from "./008_part_names";
 
 export const migrations: Record<string, Migration> = {
   "001_initial": m001,
@@ -16,6 +17,7 @@ export const migrations: Record<string, Migration> = {
   "005_security": m005,
   "006_push_readiness_calls": m006,
   "007_desk_gig_lengths_archive": m007,
+  "008_part_names": m008,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -1,9 +1,6 @@
 // The words of every e-mail Pedalpoint sends, each with a plain-text and an HTML part.
 import type { MailMessage } from "./index";
-
-function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c] ?? c);
-}
+import { escapeHtml } from "./html";
 
 function layout(title: string, paragraphs: string[], button: { label: string; href: string }, footer: string): string {
   const body = paragraphs.map((p) => `<p style="margin:0 0 16px">${escapeHtml(p)}</p>`).join("");

@@ -5,6 +5,7 @@
 import { ChartTextError, joinChartText } from "@/lib/chart";
 import type { Chart } from "@/lib/chart/model";
 import { ChartCreateSchema, ChartUpdateSchema, type ChartCreate, type ChartDto, type ChartUpdate } from "@/lib/validation/chart-input";
+import { zodIssues } from "@/lib/validation/issues";
 import { putServerChart } from "./apply";
 import { deleteChartLocally, getLocalBook, type LocalBook } from "./db";
 import { enqueue, newId } from "./outbox";
@@ -102,7 +103,7 @@ export async function saveChart(bandId: string, input: ChartSaveInput): Promise<
   const isUpdate = "baseRevision" in input && typeof input.baseRevision === "number";
   const checked = isUpdate ? ChartUpdateSchema.safeParse(stripId(input)) : ChartCreateSchema.safeParse(input);
   if (!checked.success) {
-    const fields = checked.error.issues.map((i) => ({ field: i.path.join(".") || "(form)", message: i.message }));
+    const fields = zodIssues(checked.error, { whole: "(form)" });
     return { status: "invalid", fields, message: fields[0] ? `${fields[0].field}: ${fields[0].message}` : "Check the form." };
   }
   const data = checked.data;

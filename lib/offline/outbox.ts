@@ -101,11 +101,6 @@ export async function markAttempted(book: LocalBook, items: OutboxItem[]): Promi
   });
 }
 
-export async function pendingCount(book: LocalBook, bandId?: string): Promise<number> {
-  const items = bandId ? await book.outbox.where("bandId").equals(bandId).toArray() : await book.outbox.toArray();
-  return items.filter((i) => i.status === "pending").length;
-}
-
 /** The user read the reason a change was refused and lets it go. */
 export async function dismissRejected(book: LocalBook, seq: number): Promise<void> {
   const item = await book.outbox.get(seq);

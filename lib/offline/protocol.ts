@@ -87,6 +87,9 @@ export interface WireAttachment {
   type: string;
   pages: number | null;
   createdAt: string;
+  /** The part's name and instrument id (null on parts uploaded before they were asked). */
+  partName?: string | null;
+  instrument?: string | null;
 }
 
 export interface WireMember {
@@ -136,8 +139,6 @@ export const PullQuerySchema = z.object({
   count: z.enum(["0", "1"]).optional(),
 });
 export type PullQuery = z.infer<typeof PullQuerySchema>;
-
-export const MUTATION_ENTITIES = ["chart", "setlist", "annotation"] as const;
 
 export const MutationSchema = z.object({
   mutationId: z.string().min(8).max(64),

@@ -13,6 +13,12 @@ export interface Actor {
   name: string;
 }
 
+/** The signed-in user, or 401: how a use case narrows its actor after the access check, without a cast. */
+export function signedIn(actor: Actor | null): Actor {
+  if (!actor) throw new AppError("unauthenticated", "Please sign in first.");
+  return actor;
+}
+
 export async function findMembership(db: Kysely<Database>, userId: string, bandId: string, now = new Date()): Promise<Membership | null> {
   // Asked on every request, so a prepared statement rather than a built query.
   const [m] = await membershipRow(db, bandId, userId);
@@ -27,8 +33,7 @@ export async function requireMember(
   bandId: string,
   permission: Permission,
 ): Promise<Membership> {
-  if (!actor) throw new AppError("unauthenticated", "Please sign in first.");
-  const m = await findMembership(db, actor.userId, bandId);
+  const m = await findMembership(db, signedIn(actor).userId, bandId);
   if (!m) throw new AppError("not_found", "That band was not found.");
   return assertMay(m, permission);
 }

@@ -6,7 +6,7 @@ import type { WireAttachment } from "@/lib/offline/protocol";
 // an "attachment" change so devices fetch it for offline use.
 import type { Kysely } from "kysely";
 import type { AttachmentRow, Database } from "@/db/schema";
-import { requireMember, type Actor } from "./access";
+import { requireMember, type Actor, signedIn } from "./access";
 import { recordChange } from "./changes";
 import { AppError } from "./errors";
 import type { Upload } from "./imports";
@@ -14,6 +14,10 @@ import { peek, receiveFile, type IncomingFile } from "./upload-stream";
 import { requireChartReader } from "./chart-access";
 import { partStore, PartTooLarge, type StoredPart } from "./part-store";
 import { newId, nowIso } from "./tokens";
+import { parseInput } from "./input";
+import { z } from "zod";
+import { INSTRUMENT_IDS } from "@/lib/music/instruments";
+import { IdSchema } from "@/lib/validation/common";
 
 export const MAX_ATTACHMENT_BYTES = 20 * 1024 * 1024;
 export const ATTACHMENT_TYPES = ["application/pdf", "image/png", "image/jpeg"] as const;
@@ -67,7 +71,10 @@ export class PdfPageCounter {
 }
 
 function toDto(r: AttachmentRow): AttachmentDto {
-  return { id: r.id, chartId: r.chart_id, filename: r.filename, sha256: r.sha256, size: r.size, type: r.type, pages: r.pages, createdAt: r.created_at };
+  return {
+    id: r.id, chartId: r.chart_id, filename: r.filename, sha256: r.sha256, size: r.size, type: r.type, pages: r.pages, createdAt: r.created_at,
+    partName: r.part_name ?? null, instrument: r.instrument ?? null,
+  };
 }
 
 async function requireChart(db: Kysely<Database>, bandId: string, chartId: string): Promise<void> {
@@ -77,8 +84,32 @@ async function requireChart(db: Kysely<Database>, bandId: string, chartId: strin
 
 const tooLarge = () => new AppError("payload_too_large", "That file is larger than 20 MB, the most Pedalpoint takes for a part.");
 
+/** What the form says about the part: its name, the instrument it is for, and the part it replaces. */
+export const PartDetailsSchema = z
+  .object({
+    partName: z.string().trim().min(1, "Give the part a name, such as “2nd trumpet”.").max(80, "Keep the part's name to 80 characters."),
+    instrument: z.enum(INSTRUMENT_IDS, { message: "Choose the part it is for." }),
+    replaces: IdSchema.optional(),
+  })
+  .strict();
+export type PartDetails = z.infer<typeof PartDetailsSchema>;
+
+/** The part's details from the form; a bare file (older clients, scripts) keeps its file name only. */
+export function readPartDetails(fields: Record<string, string>): PartDetails | undefined {
+  if (Object.keys(fields).length === 0) return undefined;
+  return parseInput(PartDetailsSchema, fields, { fallback: "The part's details could not be read." });
+}
+
+async function requirePart(db: Kysely<Database>, bandId: string, chartId: string, id: string): Promise<void> {
+  const found = await db.selectFrom("attachments").select("id").where("band_id", "=", bandId).where("chart_id", "=", chartId).where("id", "=", id).where("deleted_at", "is", null).executeTakeFirst();
+  if (!found) throw new AppError("not_found", "The part to replace was not found; it may have been deleted.", { fields: [{ field: "replaces", message: "That part is gone" }] });
+}
+
 /** Stores a part as its bytes stream past: the type from its first bytes, the pages counted on the way. */
 async function storeAttachment(db: Kysely<Database>, actor: Actor, bandId: string, chartId: string, file: IncomingFile): Promise<AttachmentDto> {
+  // The form's fields come before the file, so they are checked before a byte is stored.
+  const details = readPartDetails(file.fields ?? {});
+  if (details?.replaces) await requirePart(db, bandId, chartId, details.replaces);
   const { head, all } = await peek(file.chunks, 8);
   if (head.byteLength === 0) throw new AppError("bad_request", "That file is empty.", { fields: [{ field: "file", message: "The file is empty" }] });
   const type = sniffAttachment(head);
@@ -107,6 +138,8 @@ async function storeAttachment(db: Kysely<Database>, actor: Actor, bandId: strin
     size: stored.size,
     type,
     pages: counter ? counter.pages() : 1,
+    part_name: details?.partName ?? null,
+    instrument: details?.instrument ?? null,
     uploaded_by: actor.userId,
     created_at: nowIso(),
     deleted_at: null,
@@ -114,6 +147,11 @@ async function storeAttachment(db: Kysely<Database>, actor: Actor, bandId: strin
   await db.transaction().execute(async (trx) => {
     await trx.insertInto("attachments").values(row).execute();
     await recordChange(trx, { bandId, entity: "attachment", entityId: row.id, op: "upsert" });
+    // A replacement takes the old part's place in the same step: nobody sees both, or neither.
+    if (details?.replaces) {
+      await trx.updateTable("attachments").set({ deleted_at: row.created_at }).where("id", "=", details.replaces).where("deleted_at", "is", null).execute();
+      await recordChange(trx, { bandId, entity: "attachment", entityId: details.replaces, op: "delete" });
+    }
   });
   return toDto(row);
 }
@@ -127,7 +165,7 @@ export async function uploadAttachment(db: Kysely<Database>, actor: Actor | null
   await requireMember(db, actor, bandId, "editCharts");
   await requireChart(db, bandId, chartId);
   if (file.bytes.byteLength > MAX_ATTACHMENT_BYTES) throw tooLarge();
-  return storeAttachment(db, actor as Actor, bandId, chartId, { name: file.name, chunks: once(file.bytes) });
+  return storeAttachment(db, signedIn(actor), bandId, chartId, { name: file.name, chunks: once(file.bytes) });
 }
 
 /** Members who read the book see a chart's parts; a sub sees those of charts shared with them. */
@@ -184,5 +222,5 @@ export async function uploadAttachmentRequest(db: Kysely<Database>, actor: Actor
   await requireMember(db, actor, bandId, "editCharts");
   await requireChart(db, bandId, chartId);
   // Streamed from the request into the part store: never the whole file in memory.
-  return receiveFile(request, { maxBytes: MAX_ATTACHMENT_BYTES, what: "a part" }, (file) => storeAttachment(db, actor as Actor, bandId, chartId, file));
+  return receiveFile(request, { maxBytes: MAX_ATTACHMENT_BYTES, what: "a part" }, (file) => storeAttachment(db, signedIn(actor), bandId, chartId, file));
 }

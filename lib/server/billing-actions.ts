@@ -3,7 +3,7 @@ import "server-only";
 import type { Kysely } from "kysely";
 import type Stripe from "stripe";
 import type { Database } from "@/db/schema";
-import { requireMember, type Actor } from "./access";
+import { requireMember, type Actor, signedIn } from "./access";
 import { applySubscription, effectivePlan, paymentClient, paymentConfig, saveRow, subscriptionRow } from "./billing-store";
 import { isMissing } from "./billing-webhook";
 import { AppError } from "./errors";
@@ -11,7 +11,7 @@ import { appUrl } from "./tokens";
 
 export async function startCheckout(db: Kysely<Database>, actor: Actor | null, bandId: string): Promise<{ url: string }> {
   await requireMember(db, actor, bandId, "billing");
-  const me = actor as Actor;
+  const me = signedIn(actor);
   const row = await subscriptionRow(db, bandId);
   if (effectivePlan(row) === "band" && !row?.cancel_at_period_end) {
     throw new AppError("conflict", "This band is already on the band plan.");

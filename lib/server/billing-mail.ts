@@ -1,10 +1,7 @@
 import "server-only";
 // The receipt sent to the leader when the band plan starts: a plain-text and an HTML part.
 import type { MailMessage } from "@/lib/mail";
-
-function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c] ?? c);
-}
+import { escapeHtml } from "@/lib/mail/html";
 
 export function receiptMail(p: { to: string; bandName: string; amount: string; renewsAt: string | null; link: string }): MailMessage {
   const renews = p.renewsAt ? new Date(p.renewsAt).toUTCString().slice(0, 16) : "next month";

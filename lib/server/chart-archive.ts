@@ -4,7 +4,7 @@ import "server-only";
 // `chart_archive` lets a leader or arranger bring it back (a new revision, counted again).
 import type { Kysely } from "kysely";
 import type { ChartRow, Database } from "@/db/schema";
-import { requireMember, type Actor } from "./access";
+import { requireMember, type Actor, signedIn } from "./access";
 import { assertPlanAllows } from "./billing";
 import { loadChartRow, writeRevision } from "./chart-store";
 import { AppError } from "./errors";
@@ -44,7 +44,7 @@ export async function listArchivedCharts(db: Kysely<Database>, actor: Actor | nu
 
 export async function archiveChart(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, now = new Date()): Promise<{ id: string; revision: number }> {
   await requireMember(db, actor, bandId, "editCharts");
-  const me = actor as Actor;
+  const me = signedIn(actor);
   return db.transaction().execute(async (trx) => {
     const current = await loadChartRow(trx, bandId, chartId);
     if (!current || current.deleted_at) throw new AppError("not_found", "That chart was not found.");
@@ -68,7 +68,7 @@ async function archivedRow(db: Kysely<Database>, bandId: string, chartId: string
 /** Back into the book on every device, as a new revision; counted toward the plan again. */
 export async function bringBackChart(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, now = new Date()): Promise<{ id: string; revision: number }> {
   await requireMember(db, actor, bandId, "editCharts");
-  const me = actor as Actor;
+  const me = signedIn(actor);
   await archivedRow(db, bandId, chartId);
   await assertPlanAllows(db, bandId, "chart", now);
   return db.transaction().execute(async (trx) => {

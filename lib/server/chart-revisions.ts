@@ -5,7 +5,7 @@ import type { Kysely } from "kysely";
 import type { ChartRow, Database } from "@/db/schema";
 import { ChartTextError } from "@/lib/chart";
 import { requireChartReader } from "./chart-access";
-import { requireMember, type Actor } from "./access";
+import { requireMember, type Actor, signedIn } from "./access";
 import { prepareChart, toChartDto, type ChartDto, type ChartMeta, type PreparedChart } from "./chart-body";
 import { loadChartRow, writeRevision } from "./chart-store";
 import { assertPlanAllows } from "./billing";
@@ -53,7 +53,7 @@ export async function restoreRevision(
   revision: number,
 ): Promise<ChartDto> {
   await requireMember(db, actor, bandId, "editCharts");
-  const me = actor as Actor;
+  const me = signedIn(actor);
   const old = await db
     .selectFrom("chart_revisions")
     .selectAll()

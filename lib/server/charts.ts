@@ -5,7 +5,7 @@ import type { Kysely } from "kysely";
 import type { ChartRow, Database } from "@/db/schema";
 import { ChartCreateSchema, ChartUpdateSchema } from "@/lib/validation/chart-input";
 import { requireChartReader } from "./chart-access";
-import { requireMember, type Actor } from "./access";
+import { requireMember, type Actor, signedIn } from "./access";
 import { prepareChart, toChartDto, toChartSummary, type ChartDto, type ChartSummary } from "./chart-body";
 import { chartDto, loadChartRow, rowFields, writeRevision, type Db } from "./chart-store";
 import { assertPlanAllows } from "./billing";
@@ -43,7 +43,7 @@ export async function getChart(db: Kysely<Database>, actor: Actor | null, bandId
 
 export async function createChart(db: Kysely<Database>, actor: Actor | null, bandId: string, input: unknown): Promise<ChartDto> {
   await requireMember(db, actor, bandId, "editCharts");
-  const me = actor as Actor;
+  const me = signedIn(actor);
   const data = parseInput(ChartCreateSchema, input);
   await assertPlanAllows(db, bandId, "chart");
   const prepared = prepareChart(data);
@@ -80,7 +80,7 @@ export async function updateChart(
   input: unknown,
 ): Promise<ChartDto> {
   await requireMember(db, actor, bandId, "editCharts");
-  const me = actor as Actor;
+  const me = signedIn(actor);
   const data = parseInput(ChartUpdateSchema, input);
   const prepared = prepareChart(data);
   const row = await db.transaction().execute(async (trx) => {
@@ -109,7 +109,7 @@ export async function deleteChart(
   opts: { baseRevision?: number } = {},
 ): Promise<{ id: string; revision: number; deletedAt: string }> {
   await requireMember(db, actor, bandId, "editCharts");
-  const me = actor as Actor;
+  const me = signedIn(actor);
   return db.transaction().execute(async (trx) => {
     const current = await loadChartRow(trx, bandId, chartId);
     if (!current || current.deleted_at) throw new AppError("not_found", "That chart was not found.");

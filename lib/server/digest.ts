@@ -7,7 +7,7 @@ import type { Database } from "@/db/schema";
 import { can, type Role } from "@/lib/band/roles";
 import { sendMail } from "@/lib/mail";
 import { chartsUpdatedMail, type DigestChart } from "@/lib/mail/templates";
-import { requireMember, type Actor } from "./access";
+import { requireMember, type Actor, signedIn } from "./access";
 import { AppError } from "./errors";
 import { sharedChartIds } from "./shares";
 import { appUrl, nowIso } from "./tokens";
@@ -125,7 +125,7 @@ export async function sendChartsUpdatedDigest(
   now = new Date(),
 ): Promise<DigestResult> {
   await requireMember(db, actor, bandId, "editCharts");
-  const me = actor as Actor;
+  const me = signedIn(actor);
   const snap = await takeSnapshot(db, bandId, now);
   if (snap.entries.length === 0) return { sent: 0, charts: 0 };
   if (!(await moveCursor(db, bandId, snap.lastSeq, snap.maxSeq, me.userId, now))) return { sent: 0, charts: 0 };

@@ -1,4 +1,6 @@
 // Typed errors: a code that maps to an HTTP status, and a message fit for a musician.
+import type { FieldIssue } from "@/lib/validation/issues";
+
 export type ErrorCode =
   | "bad_request"
   | "unauthenticated"
@@ -28,13 +30,7 @@ const STATUS: Record<ErrorCode, number> = {
   unavailable: 503,
 };
 
-export interface FieldIssue {
-  field: string;
-  message: string;
-  /** For the chart text: where the problem is (1-based). */
-  line?: number;
-  column?: number;
-}
+export type { FieldIssue };
 
 export class AppError extends Error {
   constructor(

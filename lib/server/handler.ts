@@ -3,29 +3,19 @@ import "server-only";
 // counts anonymous callers against their limit, resolves the user, parses params, query and body
 // with zod, and turns AppErrors into JSON responses. Role checks happen in the use case it calls.
 import { NextResponse } from "next/server";
-import { z, type ZodType } from "zod";
+import type { ZodType } from "zod";
 import { ready } from "@/db";
+import type { Kysely } from "kysely";
+import type { Database as Tables } from "@/db/schema";
 import type { Actor } from "./access";
-import { AppError, type FieldIssue } from "./errors";
+import { AppError } from "./errors";
+import { parseInput } from "./input";
 import { consume, type LimitSpec } from "./rate-limit";
 import { assertSameSite, clientKey, DEFAULT_BODY_BYTES, readBodyText } from "./request-guard";
 import { getActor } from "./session";
 
-export function zodIssues(error: z.ZodError): FieldIssue[] {
-  return error.issues.map((i) => ({ field: i.path.join(".") || "(body)", message: i.message }));
-}
-
-function parseOrThrow<T>(schema: ZodType<T>, value: unknown, where: string): T {
-  const r = schema.safeParse(value);
-  if (r.success) return r.data;
-  const fields = zodIssues(r.error);
-  const first = fields[0];
-  throw new AppError(
-    where === "body" ? "unprocessable" : "bad_request",
-    // Plain words: the field's name travels in `fields`, so the form can put the message beside it.
-    first ? first.message : `Invalid ${where}.`,
-    { fields },
-  );
+function parseOrThrow<T>(schema: ZodType<T>, value: unknown, where: "address" | "query" | "body"): T {
+  return parseInput(schema, value, { code: where === "body" ? "unprocessable" : "bad_request", fallback: `Invalid ${where}.` });
 }
 
 export function errorResponse(err: unknown): NextResponse {
@@ -39,12 +29,12 @@ export function errorResponse(err: unknown): NextResponse {
   return NextResponse.json({ error: { code: "internal", message: "Something went wrong on the server. Try again in a moment." } }, { status: 500 });
 }
 
-interface Spec<P, Q, B> {
+interface Spec<P, Q, B, Anon extends boolean> {
   params?: ZodType<P>;
   query?: ZodType<Q>;
   body?: ZodType<B>;
-  /** Allow anonymous callers (sign-up, webhooks). */
-  anonymous?: boolean;
+  /** Allow anonymous callers (sign-up, webhooks); without it the handler's actor is never null. */
+  anonymous?: Anon;
   /** Largest body this route reads (bytes); DEFAULT_BODY_BYTES unless said. */
   maxBytes?: number;
   /** A per-client limit counted before any other work. */
@@ -53,8 +43,13 @@ interface Spec<P, Q, B> {
   rawBody?: boolean;
 }
 
-interface Ctx<P, Q, B> {
-  actor: Actor | null;
+/** Who is asking: always someone on a route that needs sign-in, maybe no one on an anonymous one. */
+export type ActorFor<Anon extends boolean> = Anon extends true ? Actor | null : Actor;
+
+interface Ctx<P, Q, B, Anon extends boolean> {
+  actor: ActorFor<Anon>;
+  /** The database, migrated and ready. */
+  db: Kysely<Tables>;
   params: P;
   query: Q;
   body: B;
@@ -67,9 +62,9 @@ interface Ctx<P, Q, B> {
 
 type RouteContext = { params: Promise<Record<string, string | string[]>> };
 
-export function route<P = Record<string, never>, Q = Record<string, never>, B = undefined>(
-  spec: Spec<P, Q, B>,
-  fn: (ctx: Ctx<P, Q, B>) => Promise<unknown>,
+export function route<P = Record<string, never>, Q = Record<string, never>, B = undefined, Anon extends boolean = false>(
+  spec: Spec<P, Q, B, Anon>,
+  fn: (ctx: Ctx<P, Q, B, Anon>) => Promise<unknown>,
 ) {
   return async (request: Request, context: RouteContext): Promise<Response> => {
     try {
@@ -95,7 +90,8 @@ export function route<P = Record<string, never>, Q = Record<string, never>, B = 
         }
         body = parseOrThrow(spec.body, json, "body");
       }
-      const result = await fn({ actor, params, query, body, request, text, client });
+      const db = await ready();
+      const result = await fn({ actor: actor as ActorFor<Anon>, db, params, query, body, request, text, client });
       if (result instanceof Response) return result;
       return NextResponse.json(result ?? { ok: true });
     } catch (err) {

@@ -6,7 +6,7 @@ import type { Database, Invite } from "@/db/schema";
 import { type Role, accessEnds } from "@/lib/band/roles";
 import { inviteMail, sendMail } from "@/lib/mail";
 import { InviteCreateSchema } from "@/lib/validation/band";
-import { requireMember, type Actor } from "./access";
+import { requireMember, type Actor, signedIn } from "./access";
 import { assertPlanAllows } from "./billing";
 import { recordChange } from "./changes";
 import { AppError } from "./errors";
@@ -63,7 +63,7 @@ export async function inviteMember(
   now = new Date(),
 ): Promise<{ invite: InviteDto; link: string; mailed: boolean }> {
   await requireMember(db, actor, bandId, "manageMembers");
-  const me = actor as Actor;
+  const me = signedIn(actor);
   const data = parseInput(InviteCreateSchema, input);
   if (data.accessExpiresAt && !accessEnds(data.role)) {
     throw new AppError("unprocessable", "Only a sub's access can have an end date.", {

@@ -11,7 +11,7 @@ import { deleteMarkAs, saveMarkAs, toMark } from "./annotations";
 import { AppError } from "./errors";
 import { deleteSetlistAs, loadSetlists, saveSetlistAs } from "./setlists";
 import { sharedSetlistIds } from "./shares";
-import { zodIssues } from "./zod-issues";
+import { parseInput } from "./input";
 import { can } from "@/lib/band/roles";
 
 export type FeedRow<T> = { id: string; op: "upsert"; data: T } | { id: string; op: "delete" };
@@ -71,10 +71,7 @@ function outcome(mutationId: string, err: unknown): MutationResult {
 }
 
 function parsed<T>(schema: z.ZodType<T>, data: unknown): T {
-  const r = schema.safeParse(data);
-  if (r.success) return r.data;
-  const fields = zodIssues(r.error).map((f) => ({ ...f, field: `data.${f.field}` }));
-  throw new AppError("unprocessable", fields[0]?.message ?? "The set list is not valid.", { fields });
+  return parseInput(schema, data, { prefix: "data", fallback: "The set list is not valid." });
 }
 
 /** Applies one set-list mutation from a device. The caller has already resolved the membership. */

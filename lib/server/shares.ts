@@ -6,7 +6,7 @@ import type { Kysely, Transaction } from "kysely";
 import type { Database, ShareRow } from "@/db/schema";
 import { sendMail } from "@/lib/mail";
 import { checkShareEnd, shareMail, ShareCreateSchema, shareState, type ShareState, type WireShare } from "@/lib/setlist";
-import { findMembership, requireMember, type Actor } from "./access";
+import { findMembership, requireMember, type Actor, signedIn } from "./access";
 import { recordChange } from "./changes";
 import { AppError, notFound } from "./errors";
 import { parseInput } from "./input";
@@ -76,7 +76,7 @@ export async function createShare(
   now = new Date(),
 ): Promise<{ share: WireShare; link: string; mailed: boolean }> {
   await requireMember(db, actor, bandId, "shareWithSubs");
-  const me = actor as Actor;
+  const me = signedIn(actor);
   const data = parseInput(ShareCreateSchema, input);
   const bad = checkShareEnd(data.expiresAt, now);
   if (bad) throw new AppError("unprocessable", bad, { fields: [{ field: "expiresAt", message: bad }] });

@@ -5,7 +5,7 @@ import "server-only";
 import type { Kysely } from "kysely";
 import type { Database, Membership } from "@/db/schema";
 import type { Mutation, MutationResult, PushResponse, WireChart } from "@/lib/offline/protocol";
-import { requireMember, type Actor } from "./access";
+import { requireMember, type Actor, signedIn } from "./access";
 import { createChart, deleteChart, restoreRevision, updateChart } from "./charts";
 import { AppError } from "./errors";
 import { pushAnnotationMutation, pushSetlistMutation } from "./setlist-feed";
@@ -108,7 +108,7 @@ const yieldToOthers = () => new Promise<void>((resolve) => setImmediate(resolve)
 
 export async function pushMutations(db: Kysely<Database>, actor: Actor | null, bandId: string, mutations: Mutation[]): Promise<PushResponse> {
   const membership = await requireMember(db, actor, bandId, "belong");
-  const me = actor as Actor;
+  const me = signedIn(actor);
   const results: MutationResult[] = [];
   for (const m of mutations) {
     await yieldToOthers();

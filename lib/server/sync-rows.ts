@@ -108,7 +108,8 @@ export async function loadAttachments(db: Kysely<Database>, bandId: string, ids:
       chartId: a.chart_id,
       json:
         `{"id":${s(a.id)},"chartId":${s(a.chart_id)},"filename":${s(a.filename)},"sha256":${s(a.sha256)},"size":${Number(a.size)},` +
-        `"type":${s(a.type)},"pages":${a.pages === null ? "null" : Number(a.pages)},"createdAt":${s(a.created_at)}}`,
+        `"type":${s(a.type)},"pages":${a.pages === null ? "null" : Number(a.pages)},"createdAt":${s(a.created_at)},` +
+        `"partName":${a.part_name === null ? "null" : s(a.part_name)},"instrument":${a.instrument === null ? "null" : s(a.instrument)}}`,
     });
   }
   return out;

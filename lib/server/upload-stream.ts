@@ -12,6 +12,8 @@ const ENVELOPE = 64 * 1024;
 export interface IncomingFile {
   name: string;
   chunks: AsyncIterable<Uint8Array>;
+  /** The form's text fields sent before the file (a part's name and instrument). */
+  fields?: Record<string, string>;
 }
 
 export interface ReceiveOptions {
@@ -82,6 +84,10 @@ export async function receiveFile<T>(request: Request, opts: ReceiveOptions, con
       if (err) reject(err);
       else resolve(value as T);
     };
+    const fields: Record<string, string> = {};
+    parser.on("field", (name, value) => {
+      if (!started && name !== "file") fields[name] = value;
+    });
     parser.on("file", (field, stream, info) => {
       if (field !== "file" || started) {
         stream.resume();
@@ -96,7 +102,7 @@ export async function receiveFile<T>(request: Request, opts: ReceiveOptions, con
         source.destroy();
         stream.destroy(tooBigError(opts));
       });
-      consume({ name: (info.filename || "upload").slice(0, 200), chunks: stream }).then(
+      consume({ name: (info.filename || "upload").slice(0, 200), chunks: stream, fields }).then(
         (value) => finish(null, value),
         (err) => finish(err),
       );

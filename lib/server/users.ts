@@ -6,7 +6,7 @@ import type { Kysely } from "kysely";
 import type { Insertable } from "kysely";
 import type { Database, User, UsersTable } from "@/db/schema";
 import { SignUpSchema } from "@/lib/validation/auth";
-import { zodIssues } from "./zod-issues";
+import { parseInput } from "./input";
 import { AppError } from "./errors";
 import { weakPasswordReason } from "./password-strength";
 import { newId, nowIso } from "./tokens";
@@ -64,12 +64,7 @@ export const SIGN_UP_ANSWER = (email: string): SignUpAnswer => ({
  * not proven yet: the first sign-in link its real owner opens ends the password set here.
  */
 export async function signUp(db: Kysely<Database>, input: unknown, onExisting?: (email: string) => Promise<void>): Promise<SignUpAnswer> {
-  const parsed = SignUpSchema.safeParse(input);
-  if (!parsed.success) {
-    const fields = zodIssues(parsed.error);
-    throw new AppError("unprocessable", fields[0]?.message ?? "Check the form.", { fields });
-  }
-  const { name, email, password, instrument } = parsed.data;
+  const { name, email, password, instrument } = parseInput(SignUpSchema, input);
   const weak = weakPasswordReason(password, [email, name]);
   if (weak) throw new AppError("unprocessable", weak, { fields: [{ field: "password", message: weak }] });
   const hash = await hashPassword(password);

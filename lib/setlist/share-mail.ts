@@ -1,9 +1,6 @@
 // The e-mail that lends a set list to a sub: a plain-text and an HTML part. Pure.
 import { SHARING_CAUTION } from "./share";
-
-function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c] ?? c);
-}
+import { escapeHtml } from "@/lib/mail/html";
 
 function when(iso: string): string {
   return `${new Date(iso).toISOString().slice(0, 16).replace("T", " ")} UTC`;

@@ -48,10 +48,3 @@ export const MyInstrumentSchema = z
   .strict();
 export type MyInstrument = z.infer<typeof MyInstrumentSchema>;
 
-export const BandParams = z.object({ bandId: IdSchema }).strict();
-export const ChartParams = z.object({ bandId: IdSchema, chartId: IdSchema }).strict();
-export const RevisionParams = z
-  .object({ bandId: IdSchema, chartId: IdSchema, revision: z.coerce.number().int().min(1) })
-  .strict();
-export const MemberParams = z.object({ bandId: IdSchema, userId: IdSchema }).strict();
-export const TokenParams = z.object({ token: z.string().min(10).max(200).regex(/^[A-Za-z0-9_-]+$/) }).strict();

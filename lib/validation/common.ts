@@ -1,7 +1,7 @@
 // Small shared schemas for ids, e-mail addresses and instruments (roles: lib/band/roles).
 import { z } from "zod";
+import { INSTRUMENT_IDS } from "@/lib/music/instruments";
 
-export const INSTRUMENT_IDS = ["concert", "concert-bass", "bb", "eb", "f"] as const;
 export const InstrumentIdSchema = z.enum(INSTRUMENT_IDS, { message: "Choose an instrument: concert, concert-bass, bb, eb or f" });
 export type InstrumentId = z.infer<typeof InstrumentIdSchema>;
 

@@ -10,6 +10,8 @@ const FIXTURES = path.resolve(import.meta.dirname, "../fixtures");
 const NOCTURNE = path.join(FIXTURES, "musicxml/cinderpath-nocturne.musicxml");
 const LAUGHS = path.join(FIXTURES, "musicxml/billion-laughs.musicxml");
 const PDF = path.join(FIXTURES, "attachments/horn-part-two-pages.pdf");
+// A 1×1 PNG (the PNG signature and one IDAT chunk): enough for the server's type check.
+const PNG = { mimeType: "image/png", buffer: Buffer.from("iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNkYPhfDwAChwGA60e6kgAAAABJRU5ErkJggg==", "base64") };
 
 test.describe.configure({ mode: "serial" });
 
@@ -74,12 +76,19 @@ test("upload a PDF part, then turn its pages with pedal keys and taps with no si
   await page.goto(parts);
   await controlledBySw(page);
   await expect(page.getByTestId("rights-caution")).toBeVisible();
+  // Item 22: the part's name and instrument are asked before the file; no name, no file.
+  await expect(page.getByTestId("part-file")).toBeDisabled();
+  await page.getByTestId("part-name").fill("Horn in F, 2nd");
+  await page.getByTestId("part-instrument").selectOption("f");
   await page.getByTestId("part-file").setInputFiles(PDF);
   const row = page.getByTestId("part-row").filter({ hasText: "horn-part-two-pages.pdf" });
   await expect(row).toBeVisible({ timeout: 30_000 });
+  await expect(row.getByTestId("part-title")).toHaveText("Horn in F, 2nd");
+  await expect(row.getByTestId("part-for")).toContainText("For F");
   await expect(row.getByTestId("part-offline")).toHaveText("kept on this device", { timeout: 30_000 });
 
   // A wrong file type is refused and nothing is added.
+  await page.getByTestId("part-name").fill("Notes");
   await page.getByTestId("part-file").setInputFiles({ name: "notes.pdf", mimeType: "application/pdf", buffer: Buffer.from("just words") });
   await expect(page.getByTestId("part-error")).toContainText("PDF, PNG and JPEG");
   await expect(page.getByTestId("part-row")).toHaveCount(1);
@@ -107,6 +116,36 @@ test("upload a PDF part, then turn its pages with pedal keys and taps with no si
   const drawn = await page.locator('[data-part-page="1"] canvas').evaluate((c: HTMLCanvasElement) => c.width > 0 && c.height > 0);
   expect(drawn).toBe(true);
   await context.setOffline(false);
+});
+
+test("item 22: a PDF part is replaced under its name, then deleted after an inline question", async ({ page }) => {
+  const leader = demoLeader();
+  await signIn(page, leader.email, leader.password, `/bands/${bandId}`);
+  await page.goto(`/bands/${bandId}/import/parts?chart=${encodeURIComponent(chartId)}`);
+  await page.getByTestId("part-name").fill("Lead sheet, big print");
+  await page.getByTestId("part-file").setInputFiles({ ...PNG, name: "first-scan.png" });
+  const row = () => page.getByTestId("part-row").filter({ hasText: "Lead sheet, big print" });
+  await expect(row()).toContainText("first-scan.png", { timeout: 30_000 });
+  const before = await page.getByTestId("part-row").count();
+
+  // Replace: the name and instrument stay, the file changes, the list keeps one row for it.
+  await row().getByTestId("part-replace").click();
+  await expect(page.getByTestId("part-name")).toHaveValue("Lead sheet, big print");
+  await page.getByTestId("part-file").setInputFiles({ ...PNG, name: "second-scan.png" });
+  await expect(page.getByTestId("part-status")).toHaveText("Lead sheet, big print replaced.");
+  await expect(row()).toContainText("second-scan.png", { timeout: 30_000 });
+  await expect(page.getByTestId("part-row")).toHaveCount(before);
+
+  // Delete asks inline (no browser pop-up), then the part leaves the list.
+  page.on("dialog", () => {
+    throw new Error("no browser pop-up");
+  });
+  await row().getByTestId("part-delete").click();
+  await expect(page.getByTestId("part-delete-confirm")).toBeFocused();
+  await page.getByTestId("part-delete-confirm-yes").click();
+  await expect(page.getByTestId("part-status")).toHaveText("Lead sheet, big print deleted.");
+  await expect(row()).toHaveCount(0, { timeout: 30_000 });
+  await expect(page.getByTestId("part-row")).toHaveCount(before - 1);
 });
 
 test("a score chart text cannot hold as written is imported with the changed bars named", async ({ page }) => {

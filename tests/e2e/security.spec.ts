@@ -53,6 +53,7 @@ test("the CSP carries a fresh nonce and the library, a drawn chart, the bandstan
   await expect(page.getByTestId("bandstand")).toBeVisible({ timeout: 30_000 });
 
   await page.goto(`/bands/${DEMO_BAND_ID}/import/parts?chart=${encodeURIComponent(CHART_ID)}`);
+  await page.getByTestId("part-name").fill("Horn");
   await page.getByTestId("part-file").setInputFiles(PDF);
   const row = page.getByTestId("part-row").filter({ hasText: "horn-part-two-pages.pdf" });
   await expect(row).toBeVisible({ timeout: 30_000 });

@@ -57,6 +57,31 @@ describe("the pure core", () => {
   });
 });
 
+describe("one way to validate", () => {
+  const code = () => ["app", "components", "lib"].flatMap(sourceFiles).map((f) => ({ file: path.relative(root, f), text: fs.readFileSync(f, "utf8") }));
+
+  it("zod issues become field messages in one place, lib/validation/issues.ts", () => {
+    const definers = code().filter((f) => /function zodIssues\b|const zodIssues\b/.test(f.text)).map((f) => f.file);
+    expect(definers).toEqual([path.join("lib", "validation", "issues.ts")]);
+    // A hand-written copy of the conversion (issues mapped to `{ field: path.join(".") … }`) elsewhere.
+    const copies = code().filter((f) => /\.path\.join\(\s*["']\.["']\s*\)/.test(f.text)).map((f) => f.file);
+    expect(copies).toEqual([]);
+  });
+
+  it("route address parameters are declared only in lib/validation/params.ts", () => {
+    const inline = code()
+      .filter((f) => f.file.startsWith("app"))
+      .filter((f) => /params:\s*z\.object\(|const \w*Params\s*=\s*z\./.test(f.text))
+      .map((f) => f.file);
+    expect(inline).toEqual([]);
+  });
+
+  it("no use case casts its actor to non-null; route() and action() hand over a checked one", () => {
+    const casts = code().filter((f) => /\bas Actor\b|\bactor!/.test(f.text)).map((f) => f.file);
+    expect(casts).toEqual([]);
+  });
+});
+
 describe("one way to do each thing", () => {
   it("roles and permissions come from lib/band/roles: components and lib/offline import nothing from db/", () => {
     const bad = ["components", "lib/offline"].flatMap(sourceFiles).flatMap((f) =>

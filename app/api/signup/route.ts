@@ -1,5 +1,4 @@
 import { NextResponse } from "next/server";
-import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
 import { LIMITS } from "@/lib/server/rate-limit";
 import { mailAccountExists } from "@/lib/server/sign-in";
@@ -7,7 +6,6 @@ import { signUp } from "@/lib/server/users";
 import { SignUpSchema } from "@/lib/validation/auth";
 
 // Same answer for a new address and one that has an account (its owner gets a mail instead).
-export const POST = route({ anonymous: true, body: SignUpSchema, maxBytes: 8 * 1024, limit: LIMITS.signUpPerClient }, async ({ body }) => {
-  const db = await ready();
+export const POST = route({ anonymous: true, body: SignUpSchema, maxBytes: 8 * 1024, limit: LIMITS.signUpPerClient }, async ({ db, body }) => {
   return NextResponse.json(await signUp(db, body, (email) => mailAccountExists(db, email)), { status: 201 });
 });

@@ -7,7 +7,7 @@ import { ready } from "@/db";
 import { getActor } from "@/lib/server/session";
 import { previewShare } from "@/lib/server/shares";
 import { SHARING_CAUTION } from "@/lib/setlist";
-import { TokenParams } from "@/lib/validation/band";
+import { TokenParams } from "@/lib/validation/params";
 
 export const metadata: Metadata = { title: "A set list for you" };
 

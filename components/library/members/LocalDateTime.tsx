@@ -3,14 +3,7 @@
 // never has to guess which zone the leader meant.
 import { useId, useState } from "react";
 import { CONTROL } from "@/components/ui/Field";
-
-function toLocalInput(iso: string | null): string {
-  if (!iso) return "";
-  const d = new Date(iso);
-  if (Number.isNaN(d.getTime())) return "";
-  const pad = (n: number) => String(n).padStart(2, "0");
-  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
-}
+import { toLocalInput } from "@/components/setlist/datetime";
 
 function toIso(local: string): string {
   if (!local) return "";

@@ -1,5 +1,4 @@
 // What a device needs to trust offline until it can ask again: who is signed in, and their bands.
-import { ready } from "@/db";
 import type { BootstrapResponse } from "@/lib/offline/protocol";
 import { listMyBands } from "@/lib/server/bands";
 import { AppError } from "@/lib/server/errors";
@@ -7,9 +6,9 @@ import { route } from "@/lib/server/handler";
 
 export const dynamic = "force-dynamic";
 
-export const GET = route({}, async ({ actor }) => {
+export const GET = route({}, async ({ db, actor }) => {
   if (!actor) throw new AppError("unauthenticated", "Please sign in first.");
-  const bands = await listMyBands(await ready(), actor);
+  const bands = await listMyBands(db, actor);
   const out: BootstrapResponse = {
     user: { id: actor.userId, email: actor.email, name: actor.name },
     bands: bands.map((b) => ({ id: b.id, name: b.name, role: b.role, instrument: b.instrument, expiresAt: b.expiresAt })),

@@ -1,13 +1,13 @@
 import { NextResponse } from "next/server";
-import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
 import { inviteMember, listInvites } from "@/lib/server/members";
-import { BandParams, InviteCreateSchema } from "@/lib/validation/band";
+import { InviteCreateSchema } from "@/lib/validation/band";
+import { BandParams } from "@/lib/validation/params";
 
-export const GET = route({ params: BandParams }, async ({ actor, params }) => ({
-  invites: await listInvites(await ready(), actor, params.bandId),
+export const GET = route({ params: BandParams }, async ({ db, actor, params }) => ({
+  invites: await listInvites(db, actor, params.bandId),
 }));
 
-export const POST = route({ params: BandParams, body: InviteCreateSchema }, async ({ actor, params, body }) =>
-  NextResponse.json(await inviteMember(await ready(), actor, params.bandId, body), { status: 201 }),
+export const POST = route({ params: BandParams, body: InviteCreateSchema }, async ({ db, actor, params, body }) =>
+  NextResponse.json(await inviteMember(db, actor, params.bandId, body), { status: 201 }),
 );

@@ -1,6 +1,5 @@
-import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
 import { acceptShare } from "@/lib/server/shares";
-import { TokenParams } from "@/lib/validation/band";
+import { TokenParams } from "@/lib/validation/params";
 
-export const POST = route({ params: TokenParams }, async ({ actor, params }) => acceptShare(await ready(), actor, params.token));
+export const POST = route({ params: TokenParams }, async ({ db, actor, params }) => acceptShare(db, actor, params.token));

@@ -1,10 +1,9 @@
 import { NextResponse } from "next/server";
-import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
 import { CHART_BODY_BYTES } from "@/lib/server/request-guard";
 import { confirmImport, ImportConfirmSchema } from "@/lib/server/imports";
-import { BandParams } from "@/lib/validation/band";
+import { BandParams } from "@/lib/validation/params";
 
-export const POST = route({ params: BandParams, body: ImportConfirmSchema, maxBytes: CHART_BODY_BYTES }, async ({ actor, params, body }) =>
-  NextResponse.json({ chart: await confirmImport(await ready(), actor, params.bandId, body) }, { status: 201 }),
+export const POST = route({ params: BandParams, body: ImportConfirmSchema, maxBytes: CHART_BODY_BYTES }, async ({ db, actor, params, body }) =>
+  NextResponse.json({ chart: await confirmImport(db, actor, params.bandId, body) }, { status: 201 }),
 );

@@ -1,13 +1,12 @@
 // Calling the tune: GET the gig's last call and who may call; POST calls a tune of the set list.
-import { ready } from "@/db";
 import { CallSchema, callTune, gigCallState } from "@/lib/server/calls";
 import { route } from "@/lib/server/handler";
-import { SetlistParams } from "../../params";
+import { SetlistParams } from "@/lib/validation/params";
 
 export const dynamic = "force-dynamic";
 
-export const GET = route({ params: SetlistParams }, async ({ actor, params }) => gigCallState(await ready(), actor, params.bandId, params.setlistId));
+export const GET = route({ params: SetlistParams }, async ({ db, actor, params }) => gigCallState(db, actor, params.bandId, params.setlistId));
 
-export const POST = route({ params: SetlistParams, body: CallSchema }, async ({ actor, params, body }) => ({
-  call: await callTune(await ready(), actor, params.bandId, params.setlistId, body.entryId),
+export const POST = route({ params: SetlistParams, body: CallSchema }, async ({ db, actor, params, body }) => ({
+  call: await callTune(db, actor, params.bandId, params.setlistId, body.entryId),
 }));

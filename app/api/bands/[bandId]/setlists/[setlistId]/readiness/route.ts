@@ -1,11 +1,10 @@
 // Ready for tonight: every member who will read this set list and each of their devices.
-import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
 import { setlistReadiness } from "@/lib/server/readiness";
-import { SetlistParams } from "../../params";
+import { SetlistParams } from "@/lib/validation/params";
 
 export const dynamic = "force-dynamic";
 
-export const GET = route({ params: SetlistParams }, async ({ actor, params }) => ({
-  readiness: await setlistReadiness(await ready(), actor, params.bandId, params.setlistId),
+export const GET = route({ params: SetlistParams }, async ({ db, actor, params }) => ({
+  readiness: await setlistReadiness(db, actor, params.bandId, params.setlistId),
 }));

@@ -1,14 +1,13 @@
-import { ready } from "@/db";
 import { route } from "@/lib/server/handler";
 import { createShare, listShares } from "@/lib/server/shares";
 import { ShareCreateSchema } from "@/lib/setlist";
-import { SetlistParams } from "../../params";
+import { SetlistParams } from "@/lib/validation/params";
 
-export const GET = route({ params: SetlistParams }, async ({ actor, params }) => ({
-  shares: await listShares(await ready(), actor, params.bandId, params.setlistId),
+export const GET = route({ params: SetlistParams }, async ({ db, actor, params }) => ({
+  shares: await listShares(db, actor, params.bandId, params.setlistId),
 }));
 
 // The link is mailed to the sub and returned to the leader, who may pass it on by hand.
-export const POST = route({ params: SetlistParams, body: ShareCreateSchema }, async ({ actor, params, body }) =>
-  createShare(await ready(), actor, params.bandId, params.setlistId, body),
+export const POST = route({ params: SetlistParams, body: ShareCreateSchema }, async ({ db, actor, params, body }) =>
+  createShare(db, actor, params.bandId, params.setlistId, body),
 );

@@ -1,13 +1,9 @@
-import { z } from "zod";
-import { ready } from "@/db";
 import { deleteAttachment, readAttachment, safeFilename } from "@/lib/server/attachments";
 import { route } from "@/lib/server/handler";
-import { IdSchema } from "@/lib/validation/common";
+import { AttachmentParams as Params } from "@/lib/validation/params";
 
-const Params = z.object({ bandId: IdSchema, chartId: IdSchema, attachmentId: IdSchema }).strict();
-
-export const GET = route({ params: Params }, async ({ actor, params }) => {
-  const part = await readAttachment(await ready(), actor, params.bandId, params.chartId, params.attachmentId);
+export const GET = route({ params: Params }, async ({ db, actor, params }) => {
+  const part = await readAttachment(db, actor, params.bandId, params.chartId, params.attachmentId);
   // Object storage with signed addresses: the member fetches the bytes from the store directly.
   if (part.url !== undefined) return new Response(null, { status: 302, headers: { location: part.url, "cache-control": "no-store" } });
   // Streamed from the store as they arrive, never held whole here.
@@ -24,7 +20,7 @@ export const GET = route({ params: Params }, async ({ actor, params }) => {
   });
 });
 
-export const DELETE = route({ params: Params }, async ({ actor, params }) => {
-  await deleteAttachment(await ready(), actor, params.bandId, params.chartId, params.attachmentId);
+export const DELETE = route({ params: Params }, async ({ db, actor, params }) => {
+  await deleteAttachment(db, actor, params.bandId, params.chartId, params.attachmentId);
   return { ok: true };
 });
