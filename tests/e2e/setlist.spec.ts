@@ -108,7 +108,8 @@ test.describe("tonight's gig", () => {
 
     const label = page.getByTestId("tune-label");
     await expect(label).toContainText("Lanternfish");
-    await expect(label).toContainText("Key F");
+    // in the player's part key, concert named beside it (E♭ part: concert F reads D, a major 6th above)
+    await expect(label).toContainText("Key D (concert F)");
     await expect(label).toContainText("Intro: dominant pedal, 4 bars");
     await expect(page.getByTestId("next-up")).toContainText("Next: Tidewater Waltz");
     // The same plan at the top of the screen, inside a 390px phone's width.
