@@ -111,7 +111,7 @@ test.describe("hearing the arrangement", () => {
     const mx = points.reduce((n, [x]) => n + x, 0) / points.length;
     const my = points.reduce((n, [, y]) => n + y, 0) / points.length;
     const slope = points.reduce((n, [x, y]) => n + (x - mx) * (y - my), 0) / points.reduce((n, [x]) => n + (x - mx) ** 2, 0);
-    expect(Math.abs(slope - barMs) / barMs).toBeLessThanOrEqual(0.02);
+    expect(Math.abs(slope - barMs) / barMs, `bar marks at ${JSON.stringify(log.slice(0, 9))}`).toBeLessThanOrEqual(0.02);
     for (const [x, y] of points) expect(Math.abs(y - (my + slope * (x - mx)))).toBeLessThanOrEqual(50);
   });
 
