@@ -92,7 +92,7 @@ export function ReadinessPanel({ bandId, setlistId, canNudge }: { bandId: string
               </p>
               <ul className="ml-4 list-disc text-sm">
                 {m.devices.map((d, i) => (
-                  <li key={d.deviceId ?? i} data-testid="ready-device" data-ready={d.ready ? "true" : "false"}>
+                  <li key={d.deviceId ?? i} data-testid="ready-device" data-device={d.deviceId ?? undefined} data-ready={d.ready ? "true" : "false"}>
                     {d.label}
                     {d.lastSyncAt ? ` · last synced ${when(d.lastSyncAt)}` : null}
                     {d.ready ? " · holds everything" : ` · missing: ${d.missing.join(", ")}`}
