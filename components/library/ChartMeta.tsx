@@ -6,7 +6,7 @@ import { UpdatedMark } from "./LibraryTable";
 export function ChartMeta({ chart }: { chart: LocalChart }) {
   const items: Array<[string, string]> = [
     ["Composer", chart.composer || "—"],
-    ["Concert key", prettyKey(chart.concertKey)],
+    ["Concert key", prettyKey(chart.key)],
     ["Time", chart.meter],
     ["Tempo", chart.tempo ? `${chart.tempo} bpm` : "—"],
     ["Feel", chart.feel || "—"],
@@ -31,7 +31,7 @@ export function ChartMeta({ chart }: { chart: LocalChart }) {
             · last changed <time dateTime={chart.updatedAt}>{formatDateTime(chart.updatedAt)}</time>
           </>
         ) : null}
-        {chart.updatedByName ? ` by ${chart.updatedByName}` : ""}
+        {chart.updatedBy.name ? ` by ${chart.updatedBy.name}` : ""}
         {chart.unseen ? <UpdatedMark /> : null}
       </p>
     </section>

@@ -6,7 +6,8 @@ import { Button } from "@/components/ui/Button";
 import { Field, SelectField } from "@/components/ui/Field";
 import type { Chart } from "@/lib/chart/model";
 import { anchorFor, MARK_TEXT_MAX, placeAnchor, readMarkBar, type MarkData } from "@/lib/setlist";
-import { deleteMarkEverywhere, saveMark, useMyMarks, type LocalMark } from "@/components/setlist/data";
+import { deleteMarkEverywhere, saveMark, useMyMarks } from "@/components/setlist/data";
+import type { LocalMark } from "@/lib/offline/types";
 
 interface Props {
   bandId: string;

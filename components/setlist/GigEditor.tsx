@@ -121,7 +121,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, onStartsAt, onF
     }
   }
 
-  const options = [{ value: "", label: "Choose a chart from the library…" }, ...charts.map((c) => ({ value: c.id, label: `${c.title} (${c.concertKey})` }))];
+  const options = [{ value: "", label: "Choose a chart from the library…" }, ...charts.map((c) => ({ value: c.id, label: `${c.title} (${c.key})` }))];
 
   return (
     <div className="flex flex-col gap-6">

@@ -66,7 +66,7 @@ export function PrintSet() {
                     return (
                       <li key={e.id} className="py-1" data-testid="printed-tune">
                         <span className="font-bold">{i + 1}. {c?.title ?? "?"}</span>{" "}
-                        <span className="whitespace-nowrap" data-testid="printed-key">– {partKeyInWords(e.key ?? c?.concertKey ?? "C", reader)}</span>
+                        <span className="whitespace-nowrap" data-testid="printed-key">– {partKeyInWords(e.key ?? c?.key ?? "C", reader)}</span>
                         <span className="block text-[0.55em] leading-snug">
                           Intro: {entryIntroInWords(e)}
                           {e.tempo ? ` · ♩ = ${e.tempo}` : ""}

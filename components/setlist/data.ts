@@ -6,9 +6,9 @@ import { useLiveQuery } from "dexie-react-hooks";
 import type { Chart } from "@/lib/chart/model";
 import { getLocalBook } from "@/lib/offline/db";
 import { enqueue, newId } from "@/lib/offline/outbox";
-import type { WireSetlist } from "@/lib/offline/protocol";
+import type { WireSetlist } from "@/lib/wire";
 import { getSyncEngine } from "@/lib/offline/sync";
-import type { LocalAnnotation, LocalChart, LocalMembership, LocalSetlist, LocalSetlistEntry } from "@/lib/offline/types";
+import type { LocalMark, LocalChart, LocalMembership, LocalSetlist, LocalSetlistEntry } from "@/lib/offline/types";
 import { readMark, type MarkData, type SetlistEntry, type SetlistInput } from "@/lib/setlist";
 import { can } from "@/lib/band/roles";
 
@@ -70,22 +70,16 @@ export function useMe(): string | null | undefined {
   return useLiveQuery(async () => (await getLocalBook().session.get("me"))?.userId ?? null, []);
 }
 
-export interface LocalMark {
-  id: string;
-  chartId: string;
-  revision: number;
-  data: MarkData;
-}
-
 /** This user's marks on the given charts (marks only ever reach their owner's devices). */
 export function useMyMarks(chartIds: readonly string[]): LocalMark[] | undefined {
   const key = chartIds.join(",");
   return useLiveQuery(async () => {
     if (chartIds.length === 0) return [];
-    const rows: LocalAnnotation[] = await getLocalBook().annotations.where("chartId").anyOf([...chartIds]).toArray();
+    const rows = await getLocalBook().annotations.where("chartId").anyOf([...chartIds]).toArray();
+    // A mark written by a newer version of the app may not read here: it is left out, not shown wrong.
     return rows.flatMap((r) => {
       const data = readMark(r.data);
-      return data ? [{ id: r.id, chartId: r.chartId, revision: r.revision, data }] : [];
+      return data ? [{ ...r, data }] : [];
     });
   }, [key]);
 }

@@ -14,7 +14,7 @@ async function load(copyId: string): Promise<{ copy: ChartRow; original: ChartRo
 }
 
 function inputOf(copy: ChartRow, title: string, message: string) {
-  return { title, composer: copy.composer, key: copy.concertKey, meter: copy.meter, tempo: copy.tempo, feel: copy.feel, sourceText: copy.sourceText, message };
+  return { title, composer: copy.composer, key: copy.key, meter: copy.meter, tempo: copy.tempo, feel: copy.feel, sourceText: copy.sourceText, message };
 }
 
 export async function discardCopy(copyId: string): Promise<void> {

@@ -4,12 +4,12 @@
 // and the next sync sends it. The same checks run here first, so a bad chart text is caught offline too.
 import { ChartTextError, joinChartText } from "@/lib/chart";
 import type { Chart } from "@/lib/chart/model";
-import { ChartCreateSchema, ChartUpdateSchema, type ChartCreate, type ChartDto, type ChartUpdate } from "@/lib/validation/chart-input";
+import { ChartCreateSchema, ChartUpdateSchema, type ChartCreate, type ChartUpdate } from "@/lib/validation/chart-input";
 import { zodIssues } from "@/lib/validation/issues";
+import type { WireChart } from "@/lib/wire";
 import { putServerChart } from "./apply";
 import { deleteChartLocally, getLocalBook, type LocalBook } from "./db";
 import { enqueue, newId } from "./outbox";
-import type { WireChart } from "./protocol";
 import { getSyncEngine, requestBackgroundSync } from "./sync";
 import type { ChartRow, LocalChart } from "./types";
 
@@ -29,15 +29,7 @@ export type SaveResult =
 export type ChartSaveInput = ChartCreate | (ChartUpdate & { id: string });
 
 interface ErrorBody {
-  error?: { code?: string; message?: string; fields?: FieldProblem[]; current?: ChartDto };
-}
-
-function fromDto(d: ChartDto): WireChart {
-  return {
-    id: d.id, bandId: d.bandId, title: d.title, composer: d.composer, concertKey: d.key, meter: d.meter, tempo: d.tempo, feel: d.feel,
-    revision: d.revision, updatedAt: d.updatedAt, updatedBy: d.updatedBy.id, updatedByName: d.updatedBy.name,
-    sourceText: d.sourceText, history: [], body: d.body,
-  };
+  error?: { code?: string; message?: string; fields?: FieldProblem[]; current?: WireChart };
 }
 
 /** The chart model for the local copy, the form's metadata winning over the text's header (as on the server). */
@@ -78,15 +70,15 @@ async function send(path: string, init: RequestInit): Promise<Sent> {
 
 async function answerToResult(book: LocalBook, bandId: string, res: Response): Promise<SaveResult> {
   const who = (await me(book))?.userId ?? null;
-  const body = (await res.json().catch(() => ({}))) as { chart?: ChartDto } & ErrorBody;
+  const body = (await res.json().catch(() => ({}))) as { chart?: WireChart } & ErrorBody;
   if (res.ok && body.chart) {
-    const row = await putServerChart(book, fromDto(body.chart), who);
+    const row = await putServerChart(book, body.chart, who);
     void getSyncEngine().sync({ bandId, force: false }); // brings the history list along
     return { status: "saved", chart: row };
   }
   const message = body.error?.message ?? "The server did not accept this change.";
   if (res.status === 409 && body.error?.current) {
-    const row = await putServerChart(book, fromDto(body.error.current), who);
+    const row = await putServerChart(book, body.error.current, who);
     return { status: "conflict", current: row, message };
   }
   return { status: "invalid", fields: body.error?.fields ?? [], message };
@@ -122,9 +114,9 @@ export async function saveChart(bandId: string, input: ChartSaveInput): Promise<
   const user = await me(book);
   const before = (await book.charts.get(id)) ?? null;
   const row: ChartRow = {
-    id, bandId, title: data.title, composer: data.composer, concertKey: data.key, meter: data.meter, tempo: data.tempo, feel: data.feel,
+    id, bandId, title: data.title, composer: data.composer, key: data.key, meter: data.meter, tempo: data.tempo, feel: data.feel,
     body, sourceText: data.sourceText, revision: before?.revision ?? 0, updatedAt: new Date().toISOString(),
-    updatedBy: user?.userId ?? "", updatedByName: user?.name ?? "", unseen: false, seenRevision: before?.seenRevision ?? 0, localEdit: true,
+    updatedBy: { id: user?.userId ?? "", name: user?.name ?? "" }, deletedAt: null, unseen: false, seenRevision: before?.seenRevision ?? 0, localEdit: true,
   };
   await book.transaction("rw", book.charts, book.outbox, async () => {
     await book.charts.put(row);
@@ -174,11 +166,11 @@ export async function restoreRevision(bandId: string, chartId: string, revision:
   if (old) {
     const meta = old.meta as { composer?: string; key?: string; meter?: string; tempo?: number | null; feel?: string };
     const input = {
-      title: old.title, composer: meta.composer ?? local.composer, key: meta.key ?? local.concertKey, meter: meta.meter ?? local.meter,
+      title: old.title, composer: meta.composer ?? local.composer, key: meta.key ?? local.key, meter: meta.meter ?? local.meter,
       tempo: meta.tempo ?? null, feel: meta.feel ?? local.feel, sourceText: old.sourceText, message: "",
     };
     const body = localBody(input);
-    row = { ...row, title: input.title, composer: input.composer, concertKey: input.key, meter: input.meter, tempo: input.tempo, feel: input.feel, sourceText: old.sourceText, ...(Array.isArray(body) ? {} : { body }) };
+    row = { ...row, title: input.title, composer: input.composer, key: input.key, meter: input.meter, tempo: input.tempo, feel: input.feel, sourceText: old.sourceText, ...(Array.isArray(body) ? {} : { body }) };
   }
   await book.transaction("rw", book.charts, book.outbox, async () => {
     await book.charts.put(row);

@@ -5,7 +5,8 @@ import { putServerChart } from "./apply";
 import type { LocalBook } from "./db";
 import { deleteChartLocally } from "./db";
 import { backOff, dueItems, markAttempted, newId, toMutation } from "./outbox";
-import type { MutationResult, PushResponse, WireChart } from "./protocol";
+import type { WireChart } from "@/lib/wire";
+import type { MutationResult, PushResponse } from "./protocol";
 import { AccessLostError, AuthError, NetworkError, ServerError, type Transport } from "./transport";
 import type { ChartRow, OutboxItem } from "./types";
 

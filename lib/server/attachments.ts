@@ -1,5 +1,5 @@
 import "server-only";
-import type { WireAttachment } from "@/lib/offline/protocol";
+import type { WirePart } from "@/lib/wire";
 // PDF and image parts of a chart: the type is read from the file's first bytes (never trusted from
 // the name or the browser), the size is capped, and the file is stored once under its sha256 in the
 // part store (lib/server/part-store: the data folder, or object storage). Each upload adds a row and
@@ -22,9 +22,6 @@ import { IdSchema } from "@/lib/validation/common";
 export const MAX_ATTACHMENT_BYTES = 20 * 1024 * 1024;
 export const ATTACHMENT_TYPES = ["application/pdf", "image/png", "image/jpeg"] as const;
 export type AttachmentType = (typeof ATTACHMENT_TYPES)[number];
-
-/** The wire shape devices store (one definition, shared with the sync client). */
-export type AttachmentDto = WireAttachment;
 
 /** The file's type from its magic bytes: %PDF-, the PNG signature, or a JPEG start-of-image marker. */
 export function sniffAttachment(b: Uint8Array): AttachmentType | null {
@@ -70,7 +67,7 @@ export class PdfPageCounter {
   }
 }
 
-function toDto(r: AttachmentRow): AttachmentDto {
+function toDto(r: AttachmentRow): WirePart {
   return {
     id: r.id, chartId: r.chart_id, filename: r.filename, sha256: r.sha256, size: r.size, type: r.type, pages: r.pages, createdAt: r.created_at,
     partName: r.part_name ?? null, instrument: r.instrument ?? null,
@@ -106,7 +103,7 @@ async function requirePart(db: Kysely<Database>, bandId: string, chartId: string
 }
 
 /** Stores a part as its bytes stream past: the type from its first bytes, the pages counted on the way. */
-async function storeAttachment(db: Kysely<Database>, actor: Actor, bandId: string, chartId: string, file: IncomingFile): Promise<AttachmentDto> {
+async function storeAttachment(db: Kysely<Database>, actor: Actor, bandId: string, chartId: string, file: IncomingFile): Promise<WirePart> {
   // The form's fields come before the file, so they are checked before a byte is stored.
   const details = readPartDetails(file.fields ?? {});
   if (details?.replaces) await requirePart(db, bandId, chartId, details.replaces);
@@ -161,7 +158,7 @@ async function* once(bytes: Uint8Array): AsyncGenerator<Uint8Array> {
 }
 
 /** A part already in memory (imports, tests): the same checks and store as an upload. */
-export async function uploadAttachment(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, file: Upload): Promise<AttachmentDto> {
+export async function uploadAttachment(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, file: Upload): Promise<WirePart> {
   await requireMember(db, actor, bandId, "editCharts");
   await requireChart(db, bandId, chartId);
   if (file.bytes.byteLength > MAX_ATTACHMENT_BYTES) throw tooLarge();
@@ -171,7 +168,7 @@ export async function uploadAttachment(db: Kysely<Database>, actor: Actor | null
 /** Members who read the book see a chart's parts; a sub sees those of charts shared with them. */
 const requireReader = (db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string) => requireChartReader(db, actor, bandId, chartId, "not_found");
 
-export async function listAttachments(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string): Promise<AttachmentDto[]> {
+export async function listAttachments(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string): Promise<WirePart[]> {
   await requireReader(db, actor, bandId, chartId);
   const rows = await db.selectFrom("attachments").selectAll().where("band_id", "=", bandId).where("chart_id", "=", chartId).where("deleted_at", "is", null).orderBy("created_at").execute();
   return rows.map(toDto);
@@ -181,8 +178,8 @@ export async function listAttachments(db: Kysely<Database>, actor: Actor | null,
 export const SIGNED_URL_SECONDS = 60;
 
 export type AttachmentBody =
-  | { dto: AttachmentDto; stream: ReadableStream<Uint8Array>; size: number; url?: undefined }
-  | { dto: AttachmentDto; url: string; stream?: undefined };
+  | { dto: WirePart; stream: ReadableStream<Uint8Array>; size: number; url?: undefined }
+  | { dto: WirePart; url: string; stream?: undefined };
 
 /**
  * A part's bytes for a member: streamed from the store, or (object storage with
@@ -218,7 +215,7 @@ export async function deleteAttachment(db: Kysely<Database>, actor: Actor | null
 }
 
 /** The whole upload request: role and chart are checked before the upload is read. */
-export async function uploadAttachmentRequest(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, request: Request): Promise<AttachmentDto> {
+export async function uploadAttachmentRequest(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, request: Request): Promise<WirePart> {
   await requireMember(db, actor, bandId, "editCharts");
   await requireChart(db, bandId, chartId);
   // Streamed from the request into the part store: never the whole file in memory.

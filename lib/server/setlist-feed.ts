@@ -3,7 +3,8 @@ import "server-only";
 // (filtered by what the caller may see) and push handlers for the device's outbox.
 import type { Kysely } from "kysely";
 import type { Database, Membership } from "@/db/schema";
-import type { Mutation, MutationResult, WireAnnotation, WireSetlist } from "@/lib/offline/protocol";
+import type { Mutation, MutationResult } from "@/lib/offline/protocol";
+import type { WireMark, WireSetlist } from "@/lib/wire";
 import { MarkDataSchema, SetlistInputSchema } from "@/lib/setlist";
 import { z } from "zod";
 import { assertMay } from "./access";
@@ -41,7 +42,7 @@ export async function loadAnnotationFeedRows(
   db: Kysely<Database>,
   membership: Membership,
   ids: readonly string[],
-): Promise<FeedRow<WireAnnotation>[]> {
+): Promise<FeedRow<WireMark>[]> {
   const unique = [...new Set(ids)];
   if (unique.length === 0) return [];
   const rows = await db
@@ -52,7 +53,7 @@ export async function loadAnnotationFeedRows(
     .where("band_id", "=", membership.band_id)
     .execute();
   const byId = new Map(rows.map((r) => [r.id, r]));
-  return unique.flatMap((id): FeedRow<WireAnnotation>[] => {
+  return unique.flatMap((id): FeedRow<WireMark>[] => {
     const r = byId.get(id);
     if (!r) return [];
     const mark = r.deleted_at ? null : toMark(r);
@@ -63,7 +64,7 @@ export async function loadAnnotationFeedRows(
 function outcome(mutationId: string, err: unknown): MutationResult {
   if (err instanceof AppError) {
     if (err.code === "conflict" && err.details && "current" in err.details) {
-      return { mutationId, status: "conflict", current: (err.details.current ?? null) as WireSetlist | WireAnnotation | null };
+      return { mutationId, status: "conflict", current: (err.details.current ?? null) as WireSetlist | WireMark | null };
     }
     return { mutationId, status: "rejected", reason: err.message, ...(err.details?.fields ? { fields: err.details.fields } : {}) };
   }

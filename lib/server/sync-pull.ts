@@ -9,6 +9,7 @@ import { bandCursorRow, feedPageRows, feedRemainingCount, rosterRows } from "@/d
 import type { PullQuery } from "@/lib/offline/protocol";
 import { requireMember, type Actor } from "./access";
 import { AppError } from "./errors";
+import { toWireMember } from "./members";
 import { sharedSetlistIds } from "./shares";
 import { loadAnnotationFeedRows, loadSetlistFeedRows, type FeedRow } from "./setlist-feed";
 import { loadAttachments, loadCharts } from "./sync-rows";
@@ -47,9 +48,7 @@ function scopeOf(m: Membership, visible: Visible | null): string {
 
 async function rosterJson(db: Kysely<Database>, bandId: string): Promise<string> {
   const rows = await rosterRows(db, bandId);
-  return JSON.stringify(
-    rows.map((r) => ({ userId: r.user_id, name: r.name, email: r.email, role: r.role, instrument: r.instrument, expiresAt: r.expires_at })),
-  );
+  return JSON.stringify(rows.map(toWireMember));
 }
 
 /** Deletes for everything in the band a sub can no longer see (their share ended or changed). */

@@ -4,7 +4,8 @@ import "server-only";
 // a re-send gets the first answer back.
 import type { Kysely } from "kysely";
 import type { Database, Membership } from "@/db/schema";
-import type { Mutation, MutationResult, PushResponse, WireChart } from "@/lib/offline/protocol";
+import type { Mutation, MutationResult, PushResponse } from "@/lib/offline/protocol";
+import type { WireChart } from "@/lib/wire";
 import { requireMember, type Actor, signedIn } from "./access";
 import { createChart, deleteChart, restoreRevision, updateChart } from "./charts";
 import { AppError } from "./errors";
