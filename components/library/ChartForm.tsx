@@ -100,7 +100,7 @@ export function ChartForm({ bandId, initial, editing }: Props) {
     try {
       const result = await saveChart(bandId, editing ? { ...checked.input, id: editing.chartId, baseRevision } : checked.input);
       if (result.status === "saved" || result.status === "queued") {
-        const id = result.chart?.id ?? editing?.chartId;
+        const id = result.row.id;
         router.push(id ? `/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(id)}` : back);
         return;
       }
@@ -108,10 +108,10 @@ export function ChartForm({ bandId, initial, editing }: Props) {
         setConflict(result.current);
         return;
       }
-      const { errors: fieldErrors, text } = fromServerFields(result.fields ?? [], composeText(values));
+      const { errors: fieldErrors, text } = fromServerFields(result.fields, composeText(values));
       setErrors(fieldErrors);
       setServerProblem(text);
-      setFailure(result.message ?? "The server did not accept this chart. Check the marked fields.");
+      setFailure(result.message || "The server did not accept this chart. Check the marked fields.");
     } catch (err) {
       console.error(err);
       setFailure("The chart could not be saved on this device. Try again.");

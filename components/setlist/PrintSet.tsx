@@ -12,7 +12,7 @@ import { INSTRUMENT_SHORT } from "@/components/ui/labels";
 import type { InstrumentId } from "@/lib/validation/common";
 import { useBandRoute } from "@/lib/offline/route";
 import { endingInWords, entryIntro, entryIntroInWords, groupBySet, playOrder, SHARING_CAUTION, type SetlistEntry } from "@/lib/setlist";
-import { useBookCharts, useMyMembership, useSetlist } from "./data";
+import { useBandCharts, useMembership, useSetlist } from "@/lib/offline/hooks";
 import { isInstrumentId } from "@/lib/music/instruments";
 import { keyInWords, partKeyInWords } from "@/lib/music/part-key";
 import { gigWhen } from "./datetime";
@@ -24,8 +24,8 @@ export function PrintSet() {
   const params = useSearchParams();
   const parts = params.get("parts");
   const loaded = useSetlist(setlistId);
-  const charts = useBookCharts(bandId);
-  const membership = useMyMembership(bandId);
+  const charts = useBandCharts(bandId, { copies: false });
+  const membership = useMembership(bandId);
   // The floor copy names keys in the reader's part (concert labelled), or the part asked for.
   const asked = params.get("instrument");
   const reader = asked && isInstrumentId(asked) ? asked : (membership?.instrument ?? "concert");

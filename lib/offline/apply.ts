@@ -11,8 +11,9 @@ export function chartRowFrom(w: WireChart, prev: ChartRow | undefined, me: strin
   const mine = me !== null && w.updatedBy.id === me;
   let seen = prev ? prev.seenRevision : baseline ? w.revision : 0;
   if (mine) seen = Math.max(seen, w.revision);
-  const { history: _history, ...chart } = w;
-  return { ...chart, seenRevision: seen, unseen: !mine && w.revision > seen };
+  const row: ChartRow & { history?: unknown } = { ...w, seenRevision: seen, unseen: !mine && w.revision > seen };
+  delete row.history; // kept in the revisions table
+  return row;
 }
 
 export function revisionsFrom(w: WireChart): LocalRevision[] {
@@ -33,7 +34,8 @@ async function pendingIds(book: LocalBook, bandId: string): Promise<Set<string>>
   return new Set(items.filter((i) => i.status === "pending").map((i) => i.entityId));
 }
 
-async function putSetlist(book: LocalBook, bandId: string, s: WireSetlist): Promise<void> {
+/** Stores a set list and replaces its entries. */
+export async function putSetlist(book: LocalBook, bandId: string, s: WireSetlist): Promise<void> {
   const { entries, ...list } = s;
   await book.setlists.put({ ...list, bandId });
   await book.setlistEntries.where("setlistId").equals(s.id).delete();
