@@ -6,14 +6,14 @@ import { useMemo, useState, type FormEvent } from "react";
 import { Button, LinkButton } from "@/components/ui/Button";
 import { Field, SelectField } from "@/components/ui/Field";
 import { Notice } from "@/components/ui/Notice";
-import { prettyKey } from "@/components/ui/labels";
+import { MAJOR_KEYS, MINOR_KEYS } from "@/lib/music/keys";
+import { keyNameInWords } from "@/lib/music/part-key";
 import { ChartTextError, parseChartText } from "@/lib/chart";
 import { saveChart } from "@/lib/offline/mutations";
 import { ChartTextEditor, ChartTextHelp, useSettledValue } from "./ChartTextEditor";
 import { ConflictPanel, type ConflictVersion } from "./ConflictPanel";
 import {
   FEEL_SUGGESTIONS,
-  KEY_CHOICES,
   METER_CHOICES,
   composeText,
   fromServerFields,
@@ -48,9 +48,9 @@ function liveProblem(values: ChartFormValues): Placed | null {
 }
 
 function keyOptions(current: string) {
-  const all = [...KEY_CHOICES.major, ...KEY_CHOICES.minor];
+  const all: string[] = [...MAJOR_KEYS, ...MINOR_KEYS];
   const list = all.includes(current) || !current ? all : [current, ...all];
-  return list.map((k) => ({ value: k, label: k.endsWith("m") ? `${prettyKey(k.slice(0, -1))} minor` : `${prettyKey(k)} major` }));
+  return list.map((k) => ({ value: k, label: keyNameInWords(k) }));
 }
 
 export function ChartForm({ bandId, initial, editing }: Props) {

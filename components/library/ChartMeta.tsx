@@ -1,12 +1,13 @@
 // The facts about a chart a player checks before the count-off. Placed on the chart page.
 import type { LocalChart } from "@/lib/offline/types";
-import { formatDateTime, prettyKey } from "@/components/ui/labels";
+import { formatDateTime } from "@/components/ui/labels";
+import { keyInWords } from "@/lib/music/part-key";
 import { UpdatedMark } from "./LibraryTable";
 
 export function ChartMeta({ chart }: { chart: LocalChart }) {
   const items: Array<[string, string]> = [
     ["Composer", chart.composer || "—"],
-    ["Concert key", prettyKey(chart.key)],
+    ["Concert key", keyInWords(chart.key)],
     ["Time", chart.meter],
     ["Tempo", chart.tempo ? `${chart.tempo} bpm` : "—"],
     ["Feel", chart.feel || "—"],

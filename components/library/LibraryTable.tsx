@@ -2,7 +2,8 @@
 // The book as a table. On a phone the side columns fold into a second line under the title,
 // so the table stays one table (one link per chart) at every width.
 import Link from "next/link";
-import { formatDate, prettyKey } from "@/components/ui/labels";
+import { formatDate } from "@/components/ui/labels";
+import { keyInWords } from "@/lib/music/part-key";
 import { cx } from "@/components/ui/cx";
 import type { LocalChart } from "@/lib/offline/types";
 import type { LibraryQuery, LibraryRow, SortColumn } from "./query";
@@ -99,7 +100,7 @@ export function LibraryTable({ bandId, charts, query, canEdit, onSort }: Props) 
               </td>
               <td className="hidden px-3 py-2 text-ink-soft md:table-cell">{c.composer}</td>
               <td className="px-3 py-2 font-semibold" data-testid="cell-key">
-                {prettyKey(c.key)}
+                {keyInWords(c.key)}
               </td>
               <td className="hidden px-3 py-2 sm:table-cell" data-testid="cell-feel">
                 {c.feel}

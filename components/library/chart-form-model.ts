@@ -21,10 +21,6 @@ export interface TextProblem {
   message: string;
 }
 
-const MAJOR = ["C", "Db", "D", "Eb", "E", "F", "F#", "Gb", "G", "Ab", "A", "Bb", "B"];
-const MINOR = ["Cm", "C#m", "Dm", "D#m", "Ebm", "Em", "Fm", "F#m", "Gm", "G#m", "Am", "Bbm", "Bm"];
-export const KEY_CHOICES = { major: MAJOR, minor: MINOR };
-
 export const METER_CHOICES = ["4/4", "3/4", "2/4", "2/2", "6/8", "5/4", "7/4", "12/8"];
 
 /** Suggestions only: the feel is free text. */

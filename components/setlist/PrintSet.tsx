@@ -8,7 +8,7 @@ import { PrintSheets } from "@/components/chart/PrintSheets";
 import { buildPerformance } from "@/components/chart/performance";
 import { Button } from "@/components/ui/Button";
 import { Notice } from "@/components/ui/Notice";
-import { INSTRUMENT_SHORT } from "@/components/ui/labels";
+import { instrumentLabel } from "@/components/ui/labels";
 import type { InstrumentId } from "@/lib/validation/common";
 import { useBandRoute } from "@/lib/offline/route";
 import { endingInWords, entryIntro, entryIntroInWords, groupBySet, playOrder, SHARING_CAUTION, type SetlistEntry } from "@/lib/setlist";
@@ -17,7 +17,6 @@ import { isInstrumentId } from "@/lib/music/instruments";
 import { keyInWords, partKeyInWords } from "@/lib/music/part-key";
 import { gigWhen } from "./datetime";
 
-const prettyKey = keyInWords;
 
 export function PrintSet() {
   const { bandId, setlistId } = useBandRoute();
@@ -44,7 +43,7 @@ export function PrintSet() {
       <div className="no-print mb-6 flex flex-wrap items-center gap-3">
         <Link href={back} className="underline">← Back to the gig</Link>
         <Button onClick={() => window.print()} data-testid="print-now">
-          {parts ? `Print all ${INSTRUMENT_SHORT[parts as InstrumentId] ?? parts} parts` : "Print the set list"}
+          {parts ? `Print all ${instrumentLabel(parts)} parts` : "Print the set list"}
         </Button>
         <p className="w-full text-sm text-ink-muted">{SHARING_CAUTION}</p>
       </div>
@@ -103,7 +102,7 @@ function PartsJob({ entries, charts, instrument }: { entries: SetlistEntry[]; ch
     <div data-testid="parts-job">
       <ol className="no-print list-decimal pl-6">
         {performances.map((p) => (
-          <li key={p.id}>{p.title} — {p.text.partLabel}, written in {prettyKey(p.arrangement.writtenKey)}</li>
+          <li key={p.id}>{p.title} — {p.text.partLabel}, written in {keyInWords(p.arrangement.writtenKey)}</li>
         ))}
       </ol>
       {performances.map((p) => (
