@@ -9,7 +9,6 @@ import { buildPerformance } from "@/components/chart/performance";
 import { Button } from "@/components/ui/Button";
 import { Notice } from "@/components/ui/Notice";
 import { instrumentLabel } from "@/components/ui/labels";
-import type { InstrumentId } from "@/lib/validation/common";
 import { useBandRoute } from "@/lib/offline/route";
 import { endingInWords, entryIntro, entryIntroInWords, groupBySet, playOrder, SHARING_CAUTION, type SetlistEntry } from "@/lib/setlist";
 import { useBandCharts, useMembership, useSetlist } from "@/lib/offline/hooks";
