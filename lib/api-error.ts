@@ -18,10 +18,22 @@ export interface ErrorBody {
   current?: unknown;
 }
 
+/** The `error` of an answer's parsed body, or null when it is not our shape. */
+export function errorBodyOf(body: unknown): ErrorBody | null {
+  const error = (body as { error?: unknown } | null)?.error;
+  if (typeof error !== "object" || error === null) return null;
+  const e = error as Record<string, unknown>;
+  return {
+    ...(typeof e.code === "string" ? { code: e.code } : {}),
+    ...(typeof e.message === "string" ? { message: e.message } : {}),
+    ...(Array.isArray(e.fields) ? { fields: e.fields as FieldProblem[] } : {}),
+    ...(e.current ? { current: e.current } : {}),
+  };
+}
+
 /** The `error` of a failed answer, or null when the body is not our JSON. */
 export async function readErrorBody(res: Response): Promise<ErrorBody | null> {
-  const body = (await res.json().catch(() => null)) as { error?: ErrorBody } | null;
-  return body && typeof body.error === "object" && body.error !== null ? body.error : null;
+  return errorBodyOf(await res.json().catch(() => null));
 }
 
 export interface ApiError {
@@ -31,8 +43,20 @@ export interface ApiError {
   field?: string;
 }
 
+/** What a screen shows for an answer's parsed body (an upload's, read by XMLHttpRequest). */
+export function apiErrorOf(body: unknown, fallback: string): ApiError {
+  const error = errorBodyOf(body);
+  return { message: error?.message ?? fallback, code: error?.code, field: error?.fields?.[0]?.field };
+}
+
 /** What a screen shows for a failed answer. */
 export async function readApiError(res: Response, fallback: string): Promise<ApiError> {
-  const error = await readErrorBody(res);
-  return { message: error?.message ?? fallback, code: error?.code, field: error?.fields?.[0]?.field };
+  return apiErrorOf(await res.json().catch(() => null), fallback);
+}
+
+/** Each refused field's first message, by field name, for a form. */
+export function fieldMessages(error: ErrorBody | null): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const f of error?.fields ?? []) out[f.field] ??= f.message;
+  return out;
 }

@@ -15,7 +15,8 @@ import { chartParts, fetchMissingAttachmentFiles } from "@/lib/offline/attachmen
 import { getLocalBook } from "@/lib/offline/db";
 import { syncNow, useChart, useMembership, useOnline } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
-import { errorMessage, RIGHTS_CAUTION, uploadFile } from "./upload";
+import { RIGHTS_CAUTION, uploadFile } from "./upload";
+import { apiErrorOf, readApiError } from "@/lib/api-error";
 import { can } from "@/lib/band/roles";
 
 const KB = 1024;
@@ -59,7 +60,7 @@ export function PartsScreen() {
     try {
       const fields: Record<string, string> = { partName: partName.trim(), instrument, ...(replacing ? { replaces: replacing.id } : {}) };
       const answer = await uploadFile(base, file, (progress) => setUpload({ progress }), fields);
-      if (answer.status !== 201) return setUpload({ error: errorMessage(answer.body, `The server refused this file (${answer.status}).`) });
+      if (answer.status !== 201) return setUpload({ error: apiErrorOf(answer.body, `The server refused this file (${answer.status}).`).message });
       setUpload(null);
       setDone(replacing ? `${replacing.label} replaced.` : `${partName.trim()} added.`);
       setReplacing(null);
@@ -81,7 +82,7 @@ export function PartsScreen() {
   };
   const remove = async (id: string, label: string) => {
     const res = await fetch(`${base}/${encodeURIComponent(id)}`, { method: "DELETE" });
-    if (!res.ok) return setUpload({ error: errorMessage(await res.json().catch(() => null), `The part could not be deleted (${res.status}).`) });
+    if (!res.ok) return setUpload({ error: (await readApiError(res, `The part could not be deleted (${res.status}).`)).message });
     setDeleting(null);
     setDone(`${label} deleted.`);
     await syncNow(bandId);
