@@ -1,6 +1,6 @@
 // From a chart and the reader's choices to what gets laid out: the arrangement and the page text.
 import type { Arrangement, Chart, IntroChoice, TagEnding } from "@/lib/chart/model";
-import { arrange } from "./core";
+import { arrange } from "@/lib/chart";
 import { partLabel } from "@/lib/render/part-label";
 import { keyNameInWords } from "@/lib/music/part-key";
 import type { PageText } from "./engrave";
