@@ -11,7 +11,7 @@ import { Field, SelectField } from "@/components/ui/Field";
 import { INSTRUMENT_OPTIONS, instrumentLabel } from "@/components/ui/labels";
 import { Notice } from "@/components/ui/Notice";
 import { PageColumn, PageTitle } from "@/components/ui/Page";
-import { chartParts, fetchMissingAttachmentFiles } from "@/lib/offline/attachments";
+import { chartParts, fetchMissingPartFiles } from "@/lib/offline/parts";
 import { getLocalBook } from "@/lib/offline/db";
 import { syncNow, useChart, useMembership, useOnline } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
@@ -41,7 +41,7 @@ export function PartsScreen() {
 
   useEffect(() => {
     if (!bandId || !chartId || !online) return;
-    void fetchMissingAttachmentFiles(getLocalBook(), bandId, { chartId }).catch(() => undefined);
+    void fetchMissingPartFiles(getLocalBook(), bandId, { chartId }).catch(() => undefined);
   }, [bandId, chartId, online, parts?.length]);
 
   if (!bandId || !chartId) return null;
@@ -66,7 +66,7 @@ export function PartsScreen() {
       setReplacing(null);
       setPartName("");
       await syncNow(bandId);
-      await fetchMissingAttachmentFiles(getLocalBook(), bandId, { chartId });
+      await fetchMissingPartFiles(getLocalBook(), bandId, { chartId });
     } catch (err) {
       setUpload({ error: err instanceof Error ? err.message : "The upload failed." });
     }

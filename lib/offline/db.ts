@@ -6,7 +6,7 @@ import type {
   ConflictRow,
   LocalMark,
   LocalPart,
-  LocalAttachmentFile,
+  LocalPartFile,
   LocalBand,
   LocalMember,
   LocalMembership,
@@ -28,7 +28,7 @@ export class LocalBook extends Dexie {
   setlistEntries!: EntityTable<LocalSetlistEntry, "id">;
   annotations!: EntityTable<LocalMark, "id">;
   attachments!: EntityTable<LocalPart, "id">;
-  attachmentFiles!: EntityTable<LocalAttachmentFile, "id">;
+  attachmentFiles!: EntityTable<LocalPartFile, "id">;
   syncState!: EntityTable<SyncStateRow, "bandId">;
   outbox!: EntityTable<OutboxItem, "seq">;
   conflicts!: EntityTable<ConflictRow, "id">;

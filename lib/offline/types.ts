@@ -56,7 +56,7 @@ export type LocalMark = WireMark & { bandId: string; localEdit?: boolean };
 /** Missing `partName` and `instrument` read as not given. */
 export type LocalPart = StoredBefore<WirePart, "partName" | "instrument"> & { bandId: string };
 
-export interface LocalAttachmentFile {
+export interface LocalPartFile {
   /** Attachment id. */
   id: string;
   blob: Blob;

@@ -3,7 +3,7 @@ import "server-only";
 import type { Kysely, Transaction } from "kysely";
 import type { ChartRow, Database } from "@/db/schema";
 import { ChartSchema } from "@/lib/chart/model";
-import { reanchorChartMarks } from "./annotations";
+import { reanchorChartMarks } from "./marks";
 import { recordChange } from "./changes";
 import { toWireChart, type PreparedChart } from "./chart-body";
 import { newId } from "./tokens";

@@ -66,10 +66,10 @@ export async function createChart(db: Kysely<Database>, actor: Actor | null, ban
 }
 
 async function conflict(trx: Db, current: ChartRow): Promise<AppError> {
-  const dto = await wireChart(trx, current);
-  const who = dto.updatedBy.name;
+  const theirs = await wireChart(trx, current);
+  const who = theirs.updatedBy.name;
   const what = current.deleted_at ? `${who} deleted this chart` : `${who} published revision ${current.revision}`;
-  return new AppError("conflict", `${what} while you were editing. Your text is kept: compare and publish again.`, { current: dto });
+  return new AppError("conflict", `${what} while you were editing. Your text is kept: compare and publish again.`, { current: theirs });
 }
 
 export async function updateChart(

@@ -8,7 +8,7 @@ import type { WireMark, WireSetlist } from "@/lib/wire";
 import { MarkDataSchema, SetlistInputSchema } from "@/lib/setlist";
 import { z } from "zod";
 import { assertMay } from "./access";
-import { deleteMarkAs, saveMarkAs, toMark } from "./annotations";
+import { deleteMarkAs, saveMarkAs, toMark } from "./marks";
 import { AppError } from "./errors";
 import { deleteSetlistAs, loadSetlists, saveSetlistAs } from "./setlists";
 import { sharedSetlistIds } from "./shares";
@@ -38,7 +38,7 @@ export async function loadSetlistFeedRows(
 }
 
 /** The caller's own marks for the feed; anyone else's are never returned (not even as deletes). */
-export async function loadAnnotationFeedRows(
+export async function loadMarkFeedRows(
   db: Kysely<Database>,
   membership: Membership,
   ids: readonly string[],
@@ -93,16 +93,16 @@ export async function pushSetlistMutation(db: Kysely<Database>, membership: Memb
   }
 }
 
-const AnnotationPushSchema = z.object({ chartId: z.string().min(1).max(64), data: MarkDataSchema }).strict();
+const MarkPushSchema = z.object({ chartId: z.string().min(1).max(64), data: MarkDataSchema }).strict();
 
 /** Applies one mark mutation from a device: only the owner's own marks. */
-export async function pushAnnotationMutation(db: Kysely<Database>, membership: Membership, m: Mutation, now = new Date()): Promise<MutationResult> {
+export async function pushMarkMutation(db: Kysely<Database>, membership: Membership, m: Mutation, now = new Date()): Promise<MutationResult> {
   try {
     if (m.op === "delete") {
       await deleteMarkAs(db, membership, { id: m.id, now });
       return { mutationId: m.mutationId, status: "applied", revision: m.baseRevision ?? 0, data: null };
     }
-    const data = parsed(AnnotationPushSchema, m.data);
+    const data = parsed(MarkPushSchema, m.data);
     const base = m.op === "restore" || !m.baseRevision ? null : m.baseRevision;
     const saved = await saveMarkAs(db, membership, { id: m.id, chartId: data.chartId, data: data.data, baseRevision: base, now });
     return { mutationId: m.mutationId, status: "applied", revision: saved.revision, data: saved };

@@ -11,7 +11,7 @@ import { requireMember, type Actor } from "./access";
 import { AppError } from "./errors";
 import { toWireMember } from "./members";
 import { sharedSetlistIds } from "./shares";
-import { loadAnnotationFeedRows, loadSetlistFeedRows, type FeedRow } from "./setlist-feed";
+import { loadMarkFeedRows, loadSetlistFeedRows, type FeedRow } from "./setlist-feed";
 import { loadAttachments, loadCharts } from "./sync-rows";
 import { PullBody, cachedPull, handleTag, keepPull } from "./pull-cache";
 import { can } from "@/lib/band/roles";
@@ -151,7 +151,7 @@ async function buildPage(db: Kysely<Database>, m: Membership, bandId: string, ba
   const attachments = await loadAttachments(db, bandId, ids.attachment!);
   // Set lists and marks come from their own module, which knows what a sub may see of them.
   const setlists = byId(await loadSetlistFeedRows(db, m, ids.setlist!, now));
-  const marks = byId(await loadAnnotationFeedRows(db, m, ids.annotation!));
+  const marks = byId(await loadMarkFeedRows(db, m, ids.annotation!));
 
   const retracted = rescoped && visible ? await subRetractions(db, bandId, visible) : [];
   const changes = retracted.map((r) => r.json);

@@ -9,7 +9,7 @@ import type { WireChart } from "@/lib/wire";
 import { requireMember, type Actor, signedIn } from "./access";
 import { createChart, deleteChart, restoreRevision, updateChart } from "./charts";
 import { AppError } from "./errors";
-import { pushAnnotationMutation, pushSetlistMutation } from "./setlist-feed";
+import { pushMarkMutation, pushSetlistMutation } from "./setlist-feed";
 import { loadCharts } from "./sync-rows";
 import { IdSchema } from "@/lib/validation/common";
 
@@ -89,7 +89,7 @@ export const MUTATION_HANDLERS: Readonly<Record<string, MutationHandler>> = Obje
   Object.assign(Object.create(null) as Record<string, MutationHandler>, {
     chart: pushChart,
     setlist: ({ db, membership, mutation }: PushContext) => pushSetlistMutation(db, membership, mutation),
-    annotation: ({ db, membership, mutation }: PushContext) => pushAnnotationMutation(db, membership, mutation),
+    annotation: ({ db, membership, mutation }: PushContext) => pushMarkMutation(db, membership, mutation),
   }),
 );
 

@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
-import { createMark } from "@/lib/server/annotations";
+import { createMark } from "@/lib/server/marks";
 import { createChart, getChart } from "@/lib/server/charts";
 import { listMembers } from "@/lib/server/members";
 import { getSetlist } from "@/lib/server/setlists";

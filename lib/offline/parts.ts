@@ -19,7 +19,7 @@ async function sha256Hex(bytes: ArrayBuffer): Promise<string> {
 }
 
 /** Downloads every part of the band (or of one chart) that the device does not hold yet. */
-export async function fetchMissingAttachmentFiles(
+export async function fetchMissingPartFiles(
   book: LocalBook,
   bandId: string,
   opts: { chartId?: string; fetcher?: (url: string, init?: RequestInit) => Promise<Response>; now?: () => Date } = {},
@@ -50,7 +50,7 @@ export async function fetchMissingAttachmentFiles(
 }
 
 /** The stored file of a part, or null when this device has not fetched it yet. */
-export async function readAttachmentFile(book: LocalBook, attachmentId: string): Promise<Blob | null> {
+export async function readPartFile(book: LocalBook, attachmentId: string): Promise<Blob | null> {
   return (await book.attachmentFiles.get(attachmentId))?.blob ?? null;
 }
 
