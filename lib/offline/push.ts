@@ -102,7 +102,7 @@ export async function pushOutbox(book: LocalBook, transport: Transport, bandId: 
   const now = opts.now ?? (() => new Date());
   const sum: PushSummary = { sent: 0, applied: 0, conflicts: 0, rejected: 0 };
   for (let round = 0; round < 50; round++) {
-    const batch = await dueItems(book, bandId, now(), opts.force ?? false);
+    const batch = await dueItems(book, bandId, { now: now(), force: opts.force });
     if (batch.length === 0) break;
     await markAttempted(book, batch);
     let res: Response;
