@@ -72,10 +72,10 @@ export class LocalBook extends Dexie {
 
 /** Rewrites a chart row stored before version 2 in place. */
 function toWireChartFields(row: Record<string, unknown>): void {
-  if (!("concertKey" in row)) return;
-  row.key = row.concertKey;
-  row.updatedBy = { id: row.updatedBy ?? "", name: row.updatedByName ?? "" };
-  row.deletedAt = null;
+  // A tab still running the old code may have stored a feed row in the new shape under old names: keep what is there.
+  if (typeof row.key !== "string") row.key = typeof row.concertKey === "string" ? row.concertKey : ((row.body as { key?: string } | undefined)?.key ?? "");
+  if (typeof row.updatedBy !== "object" || row.updatedBy === null) row.updatedBy = { id: row.updatedBy ?? "", name: row.updatedByName ?? "" };
+  row.deletedAt ??= null;
   delete row.concertKey;
   delete row.updatedByName;
 }
