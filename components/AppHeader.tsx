@@ -16,15 +16,16 @@ interface NavItem {
   also?: string;
 }
 
-function navFor(bandId: string, isLeader: boolean, canEdit = isLeader): NavItem[] {
+/** What the header offers: `manage` = members and plan, `edit` = import. */
+function navFor(bandId: string, { manage, edit }: { manage: boolean; edit: boolean }): NavItem[] {
   const base = `/bands/${encodeURIComponent(bandId)}`;
   const items: NavItem[] = [
     { href: base, label: "Library", testId: "nav-library", also: `${base}/charts` },
     { href: `${base}/setlists`, label: "Set lists", testId: "nav-setlists" },
   ];
-  if (canEdit) items.push({ href: `${base}/import`, label: "Import", testId: "nav-import" });
-  if (isLeader) items.push({ href: `${base}/members`, label: "Members", testId: "nav-members" });
-  if (isLeader) items.push({ href: `${base}/plan`, label: "Plan", testId: "nav-plan" });
+  if (edit) items.push({ href: `${base}/import`, label: "Import", testId: "nav-import" });
+  if (manage) items.push({ href: `${base}/members`, label: "Members", testId: "nav-members" });
+  if (manage) items.push({ href: `${base}/plan`, label: "Plan", testId: "nav-plan" });
   items.push({ href: "/settings", label: "Settings", testId: "nav-settings" });
   items.push({ href: "/account", label: "Account", testId: "nav-account" });
   return items;
@@ -63,7 +64,7 @@ export function AppHeader() {
   const band = bandId ? bands?.find((b) => b.id === bandId) : undefined;
   // Reading views (the bandstand, playing a set) use the whole screen.
   const onStage = isStagePath(pathname);
-  const items = bandId ? navFor(bandId, can(membership?.role, "manageMembers"), can(membership?.role, "editCharts")) : [];
+  const items = bandId ? navFor(bandId, { manage: can(membership?.role, "manageMembers"), edit: can(membership?.role, "editCharts") }) : [];
 
   async function signOut() {
     setLeaving(true);

@@ -163,7 +163,7 @@ export interface RosterRow {
   user_id: string;
   name: string;
   email: string;
-  role: string;
+  role: Membership["role"];
   instrument: string;
   expires_at: string | null;
 }

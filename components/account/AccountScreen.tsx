@@ -9,13 +9,13 @@ import { ConfirmInline } from "@/components/ui/Confirm";
 import { Notice } from "@/components/ui/Notice";
 import { PageColumn, PageTitle } from "@/components/ui/Page";
 import { signOutAndClear } from "@/lib/offline/hooks";
+import { readApiError } from "@/lib/api-error";
 
 async function endEverySession(): Promise<string | null> {
   try {
     const res = await fetch("/api/auth/sign-out-everywhere", { method: "POST" });
     if (res.ok) return null;
-    const body = (await res.json().catch(() => ({}))) as { error?: { message?: string } };
-    return body.error?.message ?? "The other devices were not signed out. Try again.";
+    return (await readApiError(res, "The other devices were not signed out. Try again.")).message;
   } catch {
     return "No signal: signing out every device needs the server. Try again when you are online.";
   }

@@ -7,6 +7,7 @@ import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } fro
 import type { Chart, IntroChoice, TagEnding } from "@/lib/chart/model";
 import type { BarMark } from "@/lib/setlist/marks";
 import { useOnline } from "@/lib/offline/hooks";
+import { keyInWords } from "@/lib/music/part-key";
 import { PagedChart, type PagedChartControls } from "@/components/chart/PagedChart";
 import { buildPerformance } from "@/components/chart/performance";
 import { introInWords, type EndingChoice } from "@/lib/setlist";
@@ -56,10 +57,6 @@ export interface BandstandProps {
 }
 
 const BAR_HEIGHT = 44;
-
-function prettyKey(k: string): string {
-  return k.replace("b", "♭").replace("#", "♯");
-}
 
 /** The header's intro words: tonight's choice, the chart's own intro, or none. A turnaround is named by the numerals of its key. */
 function introWords(tune: BandstandTune, ownIntroBars: number | null, numerals?: string): string {
@@ -158,7 +155,7 @@ export function Bandstand({ tunes, instrument, start = 0, startAt = "first", exi
 
   const concertKey = performance?.arrangement.concertKey ?? tune?.key ?? tune?.chart.key ?? "";
   const writtenKey = performance?.arrangement.writtenKey ?? concertKey;
-  const keyText = writtenKey === concertKey ? `Key ${prettyKey(concertKey)}` : `Key ${prettyKey(concertKey)} concert · ${prettyKey(writtenKey)} written`;
+  const keyText = writtenKey === concertKey ? `Key ${keyInWords(concertKey)}` : `Key ${keyInWords(concertKey)} concert · ${keyInWords(writtenKey)} written`;
   const ownIntroBars = tune?.intro === undefined ? (performance?.arrangement.intro?.bars.length ?? null) : null;
 
   return (

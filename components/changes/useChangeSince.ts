@@ -30,7 +30,7 @@ export function useChangeSince(chartId: string | null | undefined): ChangeSince 
     } catch {
       before = null;
     }
-    return { from, to: row.revision, before, after: row.body, author: row.updatedByName };
+    return { from, to: row.revision, before, after: row.body, author: row.updatedBy.name };
   }, [chartId]);
 }
 

@@ -2,7 +2,7 @@
 // text at the positions the layout gave them, in a box of the page's own size, so the chart can be
 // read at once and nothing moves when the engraving takes its place.
 import type { Page } from "@/lib/render/types";
-import { chordParts } from "./chord-parts";
+import { displayParts } from "@/lib/render/metrics";
 import type { PageText } from "./engrave";
 
 const FONT = "Academico, Georgia, serif";
@@ -49,7 +49,7 @@ export function ChartPreview({ page, text }: { page: Page; text: PageText }) {
       {page.systems.flatMap((system) =>
         system.bars.flatMap((b) =>
           b.chords.map((box, i) => {
-            const p = chordParts(box.symbol);
+            const p = displayParts(box.symbol);
             return (
               <text key={`${b.bar.index}:${i}`} x={box.x} y={system.staffY - 12} fontSize={box.size} fontWeight="bold">
                 {box.symbol === "N.C." ? "N.C." : `${p.root}${p.accidental}${p.quality}${p.superscript}${p.bass ? `/${p.bass}` : ""}`}

@@ -11,7 +11,7 @@ import { ChartHistory } from "@/components/library/ChartHistory";
 import { ChartMeta } from "@/components/library/ChartMeta";
 import { Button, buttonClass } from "@/components/ui/Button";
 import { Notice } from "@/components/ui/Notice";
-import { suggestIntros } from "./core";
+import { suggestIntros } from "@/lib/chart";
 import { PagedChart, type PagedChartControls } from "./PagedChart";
 import { InstrumentPicker, IntroPicker, KeyPicker, partReader } from "./Pickers";
 import { PrintSheets } from "./PrintSheets";

@@ -5,6 +5,8 @@ import type { IntroKind, IntroResult } from "@/lib/chart/model";
 import { prettyMusic, type IntroReader } from "@/lib/chart/intro-reader";
 import { INSTRUMENT_IDS, INSTRUMENTS } from "@/lib/music/instruments";
 import { transposeChord, transposeChordToKey } from "@/lib/music";
+import { MAJOR_KEYS, MINOR_KEYS } from "@/lib/music/keys";
+import { keyNameInWords } from "@/lib/music/part-key";
 import { CONTROL } from "@/components/ui/Field";
 import { cx } from "@/components/ui/cx";
 
@@ -26,12 +28,6 @@ export function InstrumentPicker({ value, onChange }: { value: string; onChange:
   );
 }
 
-const MAJOR_KEYS = ["C", "Db", "D", "Eb", "E", "F", "Gb", "G", "Ab", "A", "Bb", "B"];
-const MINOR_KEYS = ["Cm", "C#m", "Dm", "Ebm", "Em", "Fm", "F#m", "Gm", "G#m", "Am", "Bbm", "Bm"];
-
-function pretty(k: string) {
-  return k.replace("b", "♭").replace("#", "♯").replace(/m$/, " minor");
-}
 
 /** Concert key to play in (a singer's key); the chart's own key is the first choice. */
 export function KeyPicker({ chartKey, value, onChange }: { chartKey: string; value: string; onChange: (key: string | null) => void }) {
@@ -50,12 +46,12 @@ export function KeyPicker({ chartKey, value, onChange }: { chartKey: string; val
         value={value}
         onChange={(e) => onChange(e.target.value === chartKey ? null : e.target.value)}
       >
-        <option value={chartKey}>{pretty(chartKey)} (as written)</option>
+        <option value={chartKey}>{keyNameInWords(chartKey)} (as written)</option>
         {keys
           .filter((k) => k !== chartKey)
           .map((k) => (
             <option key={k} value={k}>
-              {pretty(k)}
+              {keyNameInWords(k)}
             </option>
           ))}
       </select>

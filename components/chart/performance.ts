@@ -1,7 +1,8 @@
 // From a chart and the reader's choices to what gets laid out: the arrangement and the page text.
 import type { Arrangement, Chart, IntroChoice, TagEnding } from "@/lib/chart/model";
-import { arrange } from "./core";
+import { arrange } from "@/lib/chart";
 import { partLabel } from "@/lib/render/part-label";
+import { keyNameInWords } from "@/lib/music/part-key";
 import type { PageText } from "./engrave";
 
 export interface PerformanceChoice {
@@ -19,12 +20,6 @@ export interface Performance {
   text: PageText;
 }
 
-export function prettyKeyName(key: string): string {
-  const minor = /m$/.test(key);
-  const tonic = (minor ? key.slice(0, -1) : key).replace("b", "♭").replace("#", "♯");
-  return `${tonic} ${minor ? "minor" : "major"}`;
-}
-
 export function buildPerformance(choice: PerformanceChoice): Performance {
   const arrangement = arrange(choice.chart, {
     instrument: choice.instrument,
@@ -33,7 +28,7 @@ export function buildPerformance(choice: PerformanceChoice): Performance {
     tag: choice.tag ?? null,
   });
   const c = choice.chart;
-  const details = [c.feel, c.tempo ? `♩ = ${c.tempo}` : "", `Key of ${prettyKeyName(arrangement.writtenKey)}`].filter(Boolean).join(" · ");
+  const details = [c.feel, c.tempo ? `♩ = ${c.tempo}` : "", `Key of ${keyNameInWords(arrangement.writtenKey)}`].filter(Boolean).join(" · ");
   return {
     arrangement,
     text: { title: c.title, composer: c.composer, details, partLabel: partLabel(choice.instrument) },

@@ -2,7 +2,7 @@
 // raised <tspan> for extensions, so the browser places the parts and nothing needs measuring.
 import type { RenderContext } from "./vexflow";
 import { ENDING_LABEL_SIZE, SUPERSCRIPT_SCALE, labelBoxWidth, splitSymbol } from "@/lib/render/metrics";
-import { chordParts } from "./chord-parts";
+import { displayParts } from "@/lib/render/metrics";
 
 const NS = "http://www.w3.org/2000/svg";
 // Academico has Latin only: titles in other scripts and emoji fall through to the device's own
@@ -48,7 +48,7 @@ export function addText(ctx: RenderContext, text: string, x: number, y: number, 
 }
 
 export function drawChordSymbol(ctx: RenderContext, symbol: string, x: number, y: number, size: number) {
-  const p = symbol === "N.C." ? { ...splitSymbol(symbol), root: "N.C." } : chordParts(symbol);
+  const p = symbol === "N.C." ? { ...splitSymbol(symbol), root: "N.C." } : displayParts(symbol);
   const t = addText(ctx, p.root + p.accidental + p.quality, x, y, { size, bold: true, cls: "pp-chord" });
   t.setAttribute("data-symbol", symbol);
   if (p.superscript) {

@@ -2,6 +2,7 @@
 // Following a gig: the server-sent event stream of tunes the leader calls (EventSource reconnects by
 // itself and resumes from Last-Event-ID). Without a connection the device keeps reading where it is.
 import { useCallback, useEffect, useState } from "react";
+import { readApiError } from "@/lib/api-error";
 
 export interface Jump {
   seq: number;
@@ -70,7 +71,7 @@ export function useGigFollow(bandId: string | null, setlistId: string | null, en
       setError(null);
       try {
         const res = await fetch(`${base}/calls`, { method: "POST", credentials: "same-origin", headers: { "content-type": "application/json" }, body: JSON.stringify({ entryId }) });
-        if (!res.ok) throw new Error(((await res.json()) as { error?: { message?: string } }).error?.message ?? "The call did not go through.");
+        if (!res.ok) throw new Error((await readApiError(res, "The call did not go through.")).message);
         const { call: made } = (await res.json()) as { call: CallEvent };
         setJump({ seq: made.seq, index });
       } catch (e) {

@@ -8,7 +8,8 @@ import { PageColumn, PageTitle } from "@/components/ui/Page";
 import { syncNow, useMembership, useOnline } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
 import { ImportItem, type ImportEntry, type ItemState, type PreviewData } from "./ImportItem";
-import { errorMessage, RIGHTS_CAUTION, uploadFile } from "./upload";
+import { RIGHTS_CAUTION, uploadFile } from "./upload";
+import { apiErrorOf } from "@/lib/api-error";
 import { can } from "@/lib/band/roles";
 
 export function ImportScreen() {
@@ -36,7 +37,7 @@ export function ImportScreen() {
         update(id, () =>
           answer.status === 200 && preview
             ? { phase: "ready", preview, title: preview.chart.title }
-            : { phase: "refused", message: errorMessage(answer.body, `The server refused this file (${answer.status}).`) },
+            : { phase: "refused", message: apiErrorOf(answer.body, `The server refused this file (${answer.status}).`).message },
         );
       } catch (err) {
         update(id, () => ({ phase: "refused", message: err instanceof Error ? err.message : "The upload failed." }));
@@ -63,7 +64,7 @@ export function ImportScreen() {
       update(entry.id, () => ({ phase: "saved", preview: s.preview, chartId, title: s.title.trim() }));
       void syncNow(bandId).catch(() => undefined);
     } else {
-      update(entry.id, () => ({ ...s, saving: false, planLimit: res?.status === 402, error: errorMessage(body, res ? `Not saved (${res.status}).` : "Not saved: no connection.") }));
+      update(entry.id, () => ({ ...s, saving: false, planLimit: res?.status === 402, error: apiErrorOf(body, res ? `Not saved (${res.status}).` : "Not saved: no connection.").message }));
     }
   };
 

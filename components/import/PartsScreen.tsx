@@ -11,11 +11,12 @@ import { Field, SelectField } from "@/components/ui/Field";
 import { INSTRUMENT_OPTIONS, instrumentLabel } from "@/components/ui/labels";
 import { Notice } from "@/components/ui/Notice";
 import { PageColumn, PageTitle } from "@/components/ui/Page";
-import { chartParts, fetchMissingAttachmentFiles } from "@/lib/offline/attachments";
+import { chartParts, fetchMissingPartFiles } from "@/lib/offline/parts";
 import { getLocalBook } from "@/lib/offline/db";
 import { syncNow, useChart, useMembership, useOnline } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
-import { errorMessage, RIGHTS_CAUTION, uploadFile } from "./upload";
+import { RIGHTS_CAUTION, uploadFile } from "./upload";
+import { apiErrorOf, readApiError } from "@/lib/api-error";
 import { can } from "@/lib/band/roles";
 
 const KB = 1024;
@@ -40,7 +41,7 @@ export function PartsScreen() {
 
   useEffect(() => {
     if (!bandId || !chartId || !online) return;
-    void fetchMissingAttachmentFiles(getLocalBook(), bandId, { chartId }).catch(() => undefined);
+    void fetchMissingPartFiles(getLocalBook(), bandId, { chartId }).catch(() => undefined);
   }, [bandId, chartId, online, parts?.length]);
 
   if (!bandId || !chartId) return null;
@@ -59,13 +60,13 @@ export function PartsScreen() {
     try {
       const fields: Record<string, string> = { partName: partName.trim(), instrument, ...(replacing ? { replaces: replacing.id } : {}) };
       const answer = await uploadFile(base, file, (progress) => setUpload({ progress }), fields);
-      if (answer.status !== 201) return setUpload({ error: errorMessage(answer.body, `The server refused this file (${answer.status}).`) });
+      if (answer.status !== 201) return setUpload({ error: apiErrorOf(answer.body, `The server refused this file (${answer.status}).`).message });
       setUpload(null);
       setDone(replacing ? `${replacing.label} replaced.` : `${partName.trim()} added.`);
       setReplacing(null);
       setPartName("");
       await syncNow(bandId);
-      await fetchMissingAttachmentFiles(getLocalBook(), bandId, { chartId });
+      await fetchMissingPartFiles(getLocalBook(), bandId, { chartId });
     } catch (err) {
       setUpload({ error: err instanceof Error ? err.message : "The upload failed." });
     }
@@ -81,7 +82,7 @@ export function PartsScreen() {
   };
   const remove = async (id: string, label: string) => {
     const res = await fetch(`${base}/${encodeURIComponent(id)}`, { method: "DELETE" });
-    if (!res.ok) return setUpload({ error: errorMessage(await res.json().catch(() => null), `The part could not be deleted (${res.status}).`) });
+    if (!res.ok) return setUpload({ error: (await readApiError(res, `The part could not be deleted (${res.status}).`)).message });
     setDeleting(null);
     setDone(`${label} deleted.`);
     await syncNow(bandId);

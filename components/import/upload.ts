@@ -21,11 +21,6 @@ export function uploadFile(url: string, file: File, onProgress: (fraction: numbe
 }
 
 /** The message of an error answer from our API, or a plain fallback. */
-export function errorMessage(body: unknown, fallback: string): string {
-  const e = (body as { error?: { message?: unknown } } | null)?.error;
-  return typeof e?.message === "string" ? e.message : fallback;
-}
-
 /** A copyright caution shown wherever charts or parts are uploaded. */
 export const RIGHTS_CAUTION =
   "Upload only charts your band owns or is licensed to share. Copyright rules differ from place to place; when in doubt, check the licence of the music.";

@@ -7,6 +7,7 @@ import { ConfirmInline } from "@/components/ui/Confirm";
 import { Notice } from "@/components/ui/Notice";
 import { formatDateTime } from "@/components/ui/labels";
 import { getSyncEngine } from "@/lib/offline/sync";
+import { readApiError } from "@/lib/api-error";
 
 interface Archived {
   id: string;
@@ -36,8 +37,8 @@ export function ArchivedCharts({ bandId }: { bandId: string }) {
     setAsking(null);
     const res = await fetch(`${base}/${encodeURIComponent(c.id)}`, { method }).catch(() => null);
     if (!res?.ok) {
-      const body = res ? ((await res.json().catch(() => ({}))) as { error?: { message?: string } }) : {};
-      setResult({ kind: "error", text: body.error?.message ?? "No signal: try again when you are online." });
+      const fallback = "No signal: try again when you are online.";
+      setResult({ kind: "error", text: res ? (await readApiError(res, fallback)).message : fallback });
       return;
     }
     setResult({ kind: "success", text: method === "POST" ? `“${c.title}” is back in the book.` : `“${c.title}” is deleted.` });

@@ -12,9 +12,9 @@ import { INSTRUMENT_OPTIONS, instrumentLabel, roleLabel } from "@/components/ui/
 import { syncNow, useLocalSession, useMyBands } from "@/lib/offline/hooks";
 import { BandCreateSchema } from "@/lib/validation/band";
 import { can } from "@/lib/band/roles";
+import { errorBodyOf, fieldMessages } from "@/lib/api-error";
 
 const CreatedSchema = z.object({ id: z.string() }).or(z.object({ band: z.object({ id: z.string() }) }));
-const ErrorSchema = z.object({ error: z.object({ message: z.string(), fields: z.array(z.object({ field: z.string(), message: z.string() })).optional() }) });
 
 type Errors = Partial<Record<"name" | "city" | "instrument", string>>;
 
@@ -42,11 +42,9 @@ function CreateBand() {
       const res = await fetch("/api/bands", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(parsed.data) });
       const json: unknown = await res.json().catch(() => null);
       if (!res.ok) {
-        const err = ErrorSchema.safeParse(json);
-        const next: Errors = {};
-        for (const f of err.success ? err.data.error.fields ?? [] : []) next[f.field as keyof Errors] ??= f.message;
-        setErrors(next);
-        setFailure(err.success ? err.data.error.message : "The band could not be created. Try again.");
+        const error = errorBodyOf(json);
+        setErrors(fieldMessages(error));
+        setFailure(error?.message ?? "The band could not be created. Try again.");
         return;
       }
       const created = CreatedSchema.parse(json);

@@ -6,14 +6,14 @@ import { useMemo, useState, type FormEvent } from "react";
 import { Button, LinkButton } from "@/components/ui/Button";
 import { Field, SelectField } from "@/components/ui/Field";
 import { Notice } from "@/components/ui/Notice";
-import { prettyKey } from "@/components/ui/labels";
+import { MAJOR_KEYS, MINOR_KEYS } from "@/lib/music/keys";
+import { keyNameInWords } from "@/lib/music/part-key";
 import { ChartTextError, parseChartText } from "@/lib/chart";
 import { saveChart } from "@/lib/offline/mutations";
 import { ChartTextEditor, ChartTextHelp, useSettledValue } from "./ChartTextEditor";
 import { ConflictPanel, type ConflictVersion } from "./ConflictPanel";
 import {
   FEEL_SUGGESTIONS,
-  KEY_CHOICES,
   METER_CHOICES,
   composeText,
   fromServerFields,
@@ -48,9 +48,9 @@ function liveProblem(values: ChartFormValues): Placed | null {
 }
 
 function keyOptions(current: string) {
-  const all = [...KEY_CHOICES.major, ...KEY_CHOICES.minor];
+  const all: string[] = [...MAJOR_KEYS, ...MINOR_KEYS];
   const list = all.includes(current) || !current ? all : [current, ...all];
-  return list.map((k) => ({ value: k, label: k.endsWith("m") ? `${prettyKey(k.slice(0, -1))} minor` : `${prettyKey(k)} major` }));
+  return list.map((k) => ({ value: k, label: keyNameInWords(k) }));
 }
 
 export function ChartForm({ bandId, initial, editing }: Props) {
@@ -100,7 +100,7 @@ export function ChartForm({ bandId, initial, editing }: Props) {
     try {
       const result = await saveChart(bandId, editing ? { ...checked.input, id: editing.chartId, baseRevision } : checked.input);
       if (result.status === "saved" || result.status === "queued") {
-        const id = result.chart?.id ?? editing?.chartId;
+        const id = result.row.id;
         router.push(id ? `/bands/${encodeURIComponent(bandId)}/charts/${encodeURIComponent(id)}` : back);
         return;
       }
@@ -108,10 +108,10 @@ export function ChartForm({ bandId, initial, editing }: Props) {
         setConflict(result.current);
         return;
       }
-      const { errors: fieldErrors, text } = fromServerFields(result.fields ?? [], composeText(values));
+      const { errors: fieldErrors, text } = fromServerFields(result.fields, composeText(values));
       setErrors(fieldErrors);
       setServerProblem(text);
-      setFailure(result.message ?? "The server did not accept this chart. Check the marked fields.");
+      setFailure(result.message || "The server did not accept this chart. Check the marked fields.");
     } catch (err) {
       console.error(err);
       setFailure("The chart could not be saved on this device. Try again.");

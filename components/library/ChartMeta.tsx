@@ -1,12 +1,13 @@
 // The facts about a chart a player checks before the count-off. Placed on the chart page.
 import type { LocalChart } from "@/lib/offline/types";
-import { formatDateTime, prettyKey } from "@/components/ui/labels";
+import { formatDateTime } from "@/components/ui/labels";
+import { keyInWords } from "@/lib/music/part-key";
 import { UpdatedMark } from "./LibraryTable";
 
 export function ChartMeta({ chart }: { chart: LocalChart }) {
   const items: Array<[string, string]> = [
     ["Composer", chart.composer || "—"],
-    ["Concert key", prettyKey(chart.concertKey)],
+    ["Concert key", keyInWords(chart.key)],
     ["Time", chart.meter],
     ["Tempo", chart.tempo ? `${chart.tempo} bpm` : "—"],
     ["Feel", chart.feel || "—"],
@@ -31,7 +32,7 @@ export function ChartMeta({ chart }: { chart: LocalChart }) {
             · last changed <time dateTime={chart.updatedAt}>{formatDateTime(chart.updatedAt)}</time>
           </>
         ) : null}
-        {chart.updatedByName ? ` by ${chart.updatedByName}` : ""}
+        {chart.updatedBy.name ? ` by ${chart.updatedBy.name}` : ""}
         {chart.unseen ? <UpdatedMark /> : null}
       </p>
     </section>

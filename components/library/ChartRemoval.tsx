@@ -8,6 +8,7 @@ import { ConfirmInline } from "@/components/ui/Confirm";
 import { Notice } from "@/components/ui/Notice";
 import { deleteChart } from "@/lib/offline/mutations";
 import { getSyncEngine } from "@/lib/offline/sync";
+import { readApiError } from "@/lib/api-error";
 
 type Asking = "archive" | "delete" | null;
 
@@ -28,8 +29,7 @@ export function ChartRemoval({ bandId, chartId, revision, title }: { bandId: str
         body: JSON.stringify({ chartId }),
       });
       if (!res.ok) {
-        const body = (await res.json().catch(() => ({}))) as { error?: { message?: string } };
-        setError(body.error?.message ?? "The chart was not archived.");
+        setError((await readApiError(res, "The chart was not archived.")).message);
         return;
       }
       await getSyncEngine().sync({ bandId, force: true }).catch(() => undefined);

@@ -3,19 +3,9 @@
 // is shown beside yours, and you load it and reapply your change.
 import { Button } from "@/components/ui/Button";
 import { formatDateTime } from "@/components/ui/labels";
+import type { LocalChart } from "@/lib/offline/types";
 
-export interface ConflictVersion {
-  title: string;
-  composer: string;
-  concertKey: string;
-  meter: string;
-  tempo: number | null;
-  feel: string;
-  sourceText: string;
-  revision: number;
-  updatedAt: string;
-  updatedByName?: string;
-}
+export type ConflictVersion = Pick<LocalChart, "title" | "composer" | "key" | "meter" | "tempo" | "feel" | "sourceText" | "revision" | "updatedAt" | "updatedBy">;
 
 export function ConflictPanel({ current, mine, onLoad }: { current: ConflictVersion; mine: string; onLoad: () => void }) {
   return (
@@ -25,7 +15,7 @@ export function ConflictPanel({ current, mine, onLoad }: { current: ConflictVers
       </h2>
       <p className="mt-1 text-sm">
         Version {current.revision}
-        {current.updatedByName ? ` by ${current.updatedByName}` : ""}
+        {current.updatedBy.name ? ` by ${current.updatedBy.name}` : ""}
         {current.updatedAt ? `, ${formatDateTime(current.updatedAt)}` : ""}. Your edit was not saved. Load their version,
         then make your change again; your text is kept under the chart text box to copy from.
       </p>

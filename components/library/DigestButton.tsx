@@ -4,6 +4,7 @@
 import { useState } from "react";
 import { Button } from "@/components/ui/Button";
 import { useOnline } from "@/lib/offline/hooks";
+import { apiErrorOf } from "@/lib/api-error";
 
 type Outcome = { kind: "idle" } | { kind: "busy" } | { kind: "done" | "error"; text: string };
 
@@ -16,10 +17,6 @@ function describe(body: unknown): string {
   return `Notice of ${c} sent to ${sent} ${sent === 1 ? "member" : "members"}.`;
 }
 
-function errorText(body: unknown): string {
-  const message = (body as { error?: { message?: unknown } } | null)?.error?.message;
-  return typeof message === "string" ? message : "The notice could not be sent. Try again with a connection.";
-}
 
 export function DigestButton({ bandId }: { bandId: string }) {
   const online = useOnline();
@@ -29,7 +26,7 @@ export function DigestButton({ bandId }: { bandId: string }) {
     setOutcome({ kind: "busy" });
     const res = await fetch(`/api/bands/${encodeURIComponent(bandId)}/digest`, { method: "POST" }).catch(() => null);
     const body: unknown = res ? await res.json().catch(() => null) : null;
-    setOutcome(res?.ok ? { kind: "done", text: describe(body) } : { kind: "error", text: errorText(body) });
+    setOutcome(res?.ok ? { kind: "done", text: describe(body) } : { kind: "error", text: apiErrorOf(body, "The notice could not be sent. Try again with a connection.").message });
   }
 
   const busy = outcome.kind === "busy";

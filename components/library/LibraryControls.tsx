@@ -1,7 +1,7 @@
 "use client";
 import { useEffect, useId, useRef } from "react";
 import { CONTROL } from "@/components/ui/Field";
-import { prettyKey } from "@/components/ui/labels";
+import { keyInWords } from "@/lib/music/part-key";
 import { DEFAULT_QUERY, SORT_COLUMNS, type LibraryQuery, type SortColumn } from "./query";
 
 export const SORT_LABELS: Record<SortColumn, string> = {
@@ -78,7 +78,7 @@ export function LibraryControls({ query, keys, feels, onChange }: Props) {
           <option value="">Any key</option>
           {keys.map((k) => (
             <option key={k} value={k}>
-              {prettyKey(k)}
+              {keyInWords(k)}
             </option>
           ))}
         </select>

@@ -2,17 +2,15 @@
 // The book as a table. On a phone the side columns fold into a second line under the title,
 // so the table stays one table (one link per chart) at every width.
 import Link from "next/link";
-import { formatDate, prettyKey } from "@/components/ui/labels";
+import { formatDate } from "@/components/ui/labels";
+import { keyInWords } from "@/lib/music/part-key";
 import { cx } from "@/components/ui/cx";
+import type { LocalChart } from "@/lib/offline/types";
 import type { LibraryQuery, LibraryRow, SortColumn } from "./query";
 import { SORT_LABELS } from "./LibraryControls";
 
-export interface TableChart extends LibraryRow {
-  unseen: boolean;
-  updatedByName: string;
-  /** Set on a conflict copy: the chart this device's edit was meant to change. */
-  conflictOf?: string;
-}
+/** A row of the table: `conflictOf` is set on a conflict copy (the chart this device's edit was meant to change). */
+export type TableChart = LibraryRow & Pick<LocalChart, "unseen" | "updatedBy" | "conflictOf">;
 
 interface Props {
   bandId: string;
@@ -102,7 +100,7 @@ export function LibraryTable({ bandId, charts, query, canEdit, onSort }: Props) 
               </td>
               <td className="hidden px-3 py-2 text-ink-soft md:table-cell">{c.composer}</td>
               <td className="px-3 py-2 font-semibold" data-testid="cell-key">
-                {prettyKey(c.concertKey)}
+                {keyInWords(c.key)}
               </td>
               <td className="hidden px-3 py-2 sm:table-cell" data-testid="cell-feel">
                 {c.feel}
@@ -112,7 +110,7 @@ export function LibraryTable({ bandId, charts, query, canEdit, onSort }: Props) 
               </td>
               <td className="hidden px-3 py-2 text-sm text-ink-soft lg:table-cell">
                 <time dateTime={c.updatedAt}>{formatDate(c.updatedAt)}</time>
-                {c.updatedByName ? <span className="block text-ink-muted">by {c.updatedByName}</span> : null}
+                {c.updatedBy.name ? <span className="block text-ink-muted">by {c.updatedBy.name}</span> : null}
               </td>
               {canEdit ? (
                 <td className="px-3 py-2 text-right">

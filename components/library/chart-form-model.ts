@@ -1,4 +1,5 @@
 // The chart form's values as typed, and the conversion to the body the server and the outbox take.
+import type { LocalChart } from "@/lib/offline/types";
 import { ChartInputSchema, type ChartInput } from "@/lib/validation/chart-input";
 
 export interface ChartFormValues {
@@ -19,10 +20,6 @@ export interface TextProblem {
   column: number;
   message: string;
 }
-
-const MAJOR = ["C", "Db", "D", "Eb", "E", "F", "F#", "Gb", "G", "Ab", "A", "Bb", "B"];
-const MINOR = ["Cm", "C#m", "Dm", "D#m", "Ebm", "Em", "Fm", "F#m", "Gm", "G#m", "Am", "Bbm", "Bm"];
-export const KEY_CHOICES = { major: MAJOR, minor: MINOR };
 
 export const METER_CHOICES = ["4/4", "3/4", "2/4", "2/2", "6/8", "5/4", "7/4", "12/8"];
 
@@ -48,19 +45,11 @@ export function emptyValues(): ChartFormValues {
   return { title: "", composer: "", key: "C", meter: "4/4", tempo: "", feel: "", sourceText: STARTER_TEXT, message: "" };
 }
 
-export function valuesFrom(chart: {
-  title: string;
-  composer: string;
-  concertKey: string;
-  meter: string;
-  tempo: number | null;
-  feel: string;
-  sourceText: string;
-}): ChartFormValues {
+export function valuesFrom(chart: Pick<LocalChart, "title" | "composer" | "key" | "meter" | "tempo" | "feel" | "sourceText">): ChartFormValues {
   return {
     title: chart.title,
     composer: chart.composer,
-    key: chart.concertKey,
+    key: chart.key,
     meter: chart.meter,
     tempo: chart.tempo === null ? "" : String(chart.tempo),
     feel: chart.feel,

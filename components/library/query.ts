@@ -1,15 +1,8 @@
 // The library's search, sort and filter, read from and written to the address bar so a view can be
 // bookmarked, shared and restored by the back button. Pure: works on any row with these fields.
+import type { LocalChart } from "@/lib/offline/types";
 
-export interface LibraryRow {
-  id: string;
-  title: string;
-  composer: string;
-  concertKey: string;
-  feel: string;
-  tempo: number | null;
-  updatedAt: string;
-}
+export type LibraryRow = Pick<LocalChart, "id" | "title" | "composer" | "key" | "feel" | "tempo" | "updatedAt">;
 
 export const SORT_COLUMNS = ["title", "composer", "key", "feel", "tempo", "updated"] as const;
 export type SortColumn = (typeof SORT_COLUMNS)[number];
@@ -64,7 +57,7 @@ function compare(a: LibraryRow, b: LibraryRow, sort: SortColumn): number {
     case "updated":
       return a.updatedAt < b.updatedAt ? -1 : a.updatedAt > b.updatedAt ? 1 : 0;
     case "key":
-      return a.concertKey.localeCompare(b.concertKey, "en");
+      return a.key.localeCompare(b.key, "en");
     case "composer":
       return a.composer.localeCompare(b.composer, "en", { sensitivity: "base" });
     case "feel":
@@ -77,7 +70,7 @@ function compare(a: LibraryRow, b: LibraryRow, sort: SortColumn): number {
 export function applyQuery<T extends LibraryRow>(rows: readonly T[], query: LibraryQuery): T[] {
   const needle = fold(query.q.trim());
   const kept = rows.filter((r) => {
-    if (query.key && r.concertKey !== query.key) return false;
+    if (query.key && r.key !== query.key) return false;
     if (query.feel && fold(r.feel) !== fold(query.feel)) return false;
     if (!needle) return true;
     return fold(`${r.title} ${r.composer} ${r.feel}`).includes(needle);
@@ -91,7 +84,7 @@ export function applyQuery<T extends LibraryRow>(rows: readonly T[], query: Libr
 
 /** Distinct keys and feels present in the book, for the filter menus. */
 export function facets(rows: readonly LibraryRow[]): { keys: string[]; feels: string[] } {
-  const keys = [...new Set(rows.map((r) => r.concertKey).filter(Boolean))].sort((a, b) => a.localeCompare(b, "en"));
+  const keys = [...new Set(rows.map((r) => r.key).filter(Boolean))].sort((a, b) => a.localeCompare(b, "en"));
   const byFold = new Map<string, string>();
   for (const r of rows) if (r.feel && !byFold.has(fold(r.feel))) byFold.set(fold(r.feel), r.feel);
   const feels = [...byFold.values()].sort((a, b) => a.localeCompare(b, "en", { sensitivity: "base" }));

@@ -1,5 +1,5 @@
 // What a revision changed compared with the one before it, in words for the history list.
-import { prettyKey } from "@/components/ui/labels";
+import { keyInWords } from "@/lib/music/part-key";
 
 export interface RevisionLike {
   revision: number;
@@ -19,7 +19,7 @@ const FIELDS: Array<[string, string]> = [
 function show(field: string, value: unknown): string {
   if (value === null || value === undefined || value === "") return "none";
   const text = String(value);
-  return field === "key" ? prettyKey(text) : text;
+  return field === "key" ? keyInWords(text) : text;
 }
 
 export function describeChange(rev: RevisionLike, previous: RevisionLike | undefined): string[] {

@@ -6,7 +6,9 @@ import { Button } from "@/components/ui/Button";
 import { Field, SelectField } from "@/components/ui/Field";
 import type { Chart } from "@/lib/chart/model";
 import { anchorFor, MARK_TEXT_MAX, placeAnchor, readMarkBar, type MarkData } from "@/lib/setlist";
-import { deleteMarkEverywhere, saveMark, useMyMarks, type LocalMark } from "@/components/setlist/data";
+import { useMyMarks } from "@/lib/offline/hooks";
+import { deleteMark, saveMark } from "@/lib/offline/setlist-mutations";
+import type { LocalMark } from "@/lib/offline/types";
 
 interface Props {
   bandId: string;
@@ -118,7 +120,7 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
                   <Button tone="quiet" onClick={() => {
                     setStatus("Mark removed.");
                     if (editing?.id === m.id) reset();
-                    void deleteMarkEverywhere(bandId, m);
+                    void deleteMark(bandId, m);
                   }} aria-label={`Remove the mark at ${where}`}>Remove</Button>
                 </span>
               </li>

@@ -4,7 +4,7 @@
 import { useMemo } from "react";
 import type { Chart } from "@/lib/chart/model";
 import { marksByBar, type BarMark } from "@/lib/setlist";
-import { useMyMarks } from "@/components/setlist/data";
+import { useMyMarks } from "@/lib/offline/hooks";
 
 export type BarMarks = ReadonlyMap<string, BarMark>;
 

@@ -2,7 +2,7 @@
 // A chart's PDF or image part in the bandstand view (`…/bandstand?part=<id>`), read from this device.
 import { useLiveQuery } from "dexie-react-hooks";
 import Link from "next/link";
-import { chartParts, readAttachmentFile } from "@/lib/offline/attachments";
+import { chartParts, readPartFile } from "@/lib/offline/parts";
 import { getLocalBook } from "@/lib/offline/db";
 import { useOnline } from "@/lib/offline/hooks";
 import { PartScreen } from "./PartScreen";
@@ -17,7 +17,7 @@ export interface PartOnStandProps {
 export function PartOnStand({ chartId, chartTitle, partId, exitHref }: PartOnStandProps) {
   const online = useOnline();
   const parts = useLiveQuery(() => chartParts(getLocalBook(), chartId), [chartId]);
-  const file = useLiveQuery(() => readAttachmentFile(getLocalBook(), partId), [partId]);
+  const file = useLiveQuery(() => readPartFile(getLocalBook(), partId), [partId]);
   if (parts === undefined || file === undefined) return <p className="p-6">Opening the part…</p>;
   const part = parts.find((p) => p.id === partId);
   if (!part || file === null) {

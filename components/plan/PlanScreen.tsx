@@ -10,6 +10,7 @@ import { PageColumn, PageTitle } from "@/components/ui/Page";
 import { useOnline } from "@/lib/offline/hooks";
 import { useBandRoute } from "@/lib/offline/route";
 import { PlanFacts, priceInWords, type PlanView } from "./PlanFacts";
+import { apiErrorOf } from "@/lib/api-error";
 
 type Load = { state: "loading" } | { state: "ready"; plan: PlanView } | { state: "error"; message: string };
 
@@ -19,8 +20,7 @@ async function call(url: string, init?: RequestInit): Promise<{ ok: boolean; bod
   return { ok: !!res?.ok, body };
 }
 
-const messageOf = (body: Record<string, unknown> | null, fallback: string) =>
-  typeof (body?.error as { message?: unknown } | undefined)?.message === "string" ? String((body!.error as { message: string }).message) : fallback;
+const messageOf = (body: Record<string, unknown> | null, fallback: string) => apiErrorOf(body, fallback).message;
 
 export function PlanScreen() {
   const { bandId } = useBandRoute();

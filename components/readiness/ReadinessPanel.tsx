@@ -5,6 +5,7 @@ import { useCallback, useEffect, useState } from "react";
 import { Button } from "@/components/ui/Button";
 import type { Readiness } from "@/lib/server/readiness-model";
 import { useOnline } from "@/lib/offline/hooks";
+import { readApiError } from "@/lib/api-error";
 
 const REFRESH_MS = 10_000;
 
@@ -52,6 +53,7 @@ export function ReadinessPanel({ bandId, setlistId, canNudge }: { bandId: string
     setNote("Nudging…");
     try {
       const res = await fetch(`${base}/nudge`, { method: "POST", credentials: "same-origin", headers: { "content-type": "application/json" }, body: "{}" });
+      if (!res.ok) return setNote((await readApiError(res, "The nudge did not go out.")).message);
       const { nudged } = (await res.json()) as { nudged?: { pushed: string[]; mailed: string[] } };
       if (!nudged) return setNote("The nudge did not go out.");
       const parts = [nudged.pushed.length ? `notice sent to ${nudged.pushed.join(", ")}` : "", nudged.mailed.length ? `e-mail sent to ${nudged.mailed.join(", ")}` : ""].filter(Boolean);

@@ -7,7 +7,10 @@ import { Field, SelectField, TextAreaField } from "@/components/ui/Field";
 import { Notice } from "@/components/ui/Notice";
 import type { LocalChart, LocalSetlist } from "@/lib/offline/types";
 import { checkArrangement, groupBySet, MAX_SETS, renumber, SetMinutesSchema, type SetlistEntry } from "@/lib/setlist";
-import { newId, saveSetlist, type SaveOutcome } from "./data";
+import { newId } from "@/lib/offline/outbox";
+import type { SaveResult } from "@/lib/offline/send";
+import { saveSetlist } from "@/lib/offline/setlist-mutations";
+import type { WireSetlist } from "@/lib/wire";
 import { fromLocalInput, toLocalInput } from "./datetime";
 import { SetLength } from "./SetLength";
 import { SetTunes, type TuneInfo } from "./SetTunes";
@@ -61,7 +64,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, onStartsAt, onF
     if (d) onNote("");
   };
   const [saving, setSaving] = useState(false);
-  const [outcome, setOutcome] = useState<SaveOutcome | null>(null);
+  const [outcome, setOutcome] = useState<SaveResult<WireSetlist> | null>(null);
   const [adding, setAdding] = useState<Record<number, string>>({});
 
   const tunes = useMemo(() => new Map<string, TuneInfo>(charts.map((c) => [c.id, { title: c.title, chart: c.body, changed: c.unseen }])), [charts]);
@@ -109,7 +112,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, onStartsAt, onF
   async function save() {
     setSaving(true);
     try {
-      const r = await saveSetlist(bandId, setlist.id, setlist.revision, draft, draft.entries);
+      const r = await saveSetlist(bandId, { id: setlist.id, revision: setlist.revision, meta: draft, entries: draft.entries });
       setOutcome(r);
       if (r.status === "saved" || r.status === "queued") {
         onNote(r.status === "saved" ? "Saved." : "Saved on this device; it goes to the band when you have signal.");
@@ -121,7 +124,7 @@ function GigEditor({ bandId, setlist, initial, charts, openHref, onStartsAt, onF
     }
   }
 
-  const options = [{ value: "", label: "Choose a chart from the library…" }, ...charts.map((c) => ({ value: c.id, label: `${c.title} (${c.concertKey})` }))];
+  const options = [{ value: "", label: "Choose a chart from the library…" }, ...charts.map((c) => ({ value: c.id, label: `${c.title} (${c.key})` }))];
 
   return (
     <div className="flex flex-col gap-6">

@@ -14,7 +14,9 @@ import { INSTRUMENT_OPTIONS } from "@/components/ui/labels";
 import { chartQuery } from "@/components/chart/params";
 import { useBandRoute } from "@/lib/offline/route";
 import { entryIntro, groupBySet, type SetlistEntry } from "@/lib/setlist";
-import { canEditSetlists, deleteSetlistEverywhere, newId, saveSetlist, useBookCharts, useHasSynced, useMyMembership, useSetlist } from "./data";
+import { useBandCharts, useHasSynced, useMembership, useSetlist } from "@/lib/offline/hooks";
+import { newId } from "@/lib/offline/outbox";
+import { deleteSetlist, saveSetlist } from "@/lib/offline/setlist-mutations";
 import { gigWhen } from "./datetime";
 import { GigEditorHost } from "./GigEditor";
 import { SetLength } from "./SetLength";
@@ -35,12 +37,13 @@ export function GigScreen() {
   const { bandId, setlistId } = useBandRoute();
   const router = useRouter();
   const loaded = useSetlist(setlistId);
-  const charts = useBookCharts(bandId);
-  const membership = useMyMembership(bandId);
+  const charts = useBandCharts(bandId, { copies: false });
+  const membership = useMembership(bandId);
   const synced = useHasSynced(bandId);
   const fresh = useSearchParams().get("new") === "1";
   const [instrument, setInstrument] = useState<string | null>(null);
   const [asking, setAsking] = useState(false);
+  const [removeProblem, setRemoveProblem] = useState<string | null>(null);
   // The gig's time as it stands in the editor, saved or not: a share's end follows it at once.
   const [shownStart, setShownStart] = useState<{ id: string; startsAt: string | null } | null>(null);
   const part = instrument ?? membership?.instrument ?? "concert";
@@ -53,7 +56,7 @@ export function GigScreen() {
   }
   const base = `/bands/${encodeURIComponent(bandId)}/setlists`;
   // "New set list" opens an empty draft: nothing is stored until the leader saves it.
-  const draft = loaded === null && fresh && canEditSetlists(membership) ? blankSetlist(setlistId, bandId) : null;
+  const draft = loaded === null && fresh && can(membership?.role, "editSetlists") ? blankSetlist(setlistId, bandId) : null;
   if (loaded === null && !draft && !synced) {
     return <PageColumn><p className="py-8 text-center text-ink-muted" role="status">Bringing the set list to this device…</p></PageColumn>;
   }
@@ -68,7 +71,7 @@ export function GigScreen() {
   }
   const setlist = loaded?.setlist ?? draft!;
   const saved = setlist.revision > 0;
-  const editable = canEditSetlists(membership);
+  const editable = can(membership?.role, "editSetlists");
   const startsAt = shownStart?.id === setlist.id ? shownStart.startsAt : setlist.startsAt;
   const here = `${base}/${encodeURIComponent(setlist.id)}`;
   const openHref = (e: SetlistEntry) =>
@@ -77,13 +80,14 @@ export function GigScreen() {
   async function duplicate() {
     const id = newId();
     const copy = entries.map((e) => ({ ...e, id: newId() }));
-    await saveSetlist(bandId!, id, 0, { name: `${setlist.name} (next gig)`, startsAt: null, venue: setlist.venue, notes: setlist.notes, setMinutes: setlist.setMinutes }, copy);
+    await saveSetlist(bandId!, { id, revision: 0, meta: { name: `${setlist.name} (next gig)`, startsAt: null, venue: setlist.venue, notes: setlist.notes, setMinutes: setlist.setMinutes }, entries: copy });
     router.push(`${base}/${encodeURIComponent(id)}`);
   }
   async function remove() {
     setAsking(false);
-    await deleteSetlistEverywhere(bandId!, setlist.id, setlist.revision, setlist.name);
-    router.push(base);
+    const r = await deleteSetlist(bandId!, setlist);
+    if (r.status === "saved" || r.status === "queued") router.push(base);
+    else setRemoveProblem(r.message);
   }
 
   return (
@@ -118,6 +122,7 @@ export function GigScreen() {
           />
         ) : null}
       </div>
+      {removeProblem ? <div className="mb-4"><Notice kind="error" title="Not deleted" testId="delete-setlist-error">{removeProblem}</Notice></div> : null}
 
       {editable ? (
         <GigEditorHost

@@ -10,7 +10,7 @@ import { useBandRoute } from "@/lib/offline/route";
 import { isInstrumentId } from "@/lib/music/instruments";
 import { partKeyInWords } from "@/lib/music/part-key";
 import { endingInWords, entryIntro, entryIntroInWords, playOrder, type SetlistEntry } from "@/lib/setlist";
-import { useBookCharts, useMyMembership, useSetlist } from "./data";
+import { useBandCharts, useMembership, useSetlist } from "@/lib/offline/hooks";
 import { useTuneMarks } from "@/components/marks/useBarMarks";
 
 /** The line at the top of each tune: where it sits in the night and how it goes tonight. */
@@ -31,8 +31,8 @@ export function PlaySet() {
   const { bandId, setlistId } = useBandRoute();
   const params = useSearchParams();
   const loaded = useSetlist(setlistId);
-  const charts = useBookCharts(bandId);
-  const membership = useMyMembership(bandId);
+  const charts = useBandCharts(bandId, { copies: false });
+  const membership = useMembership(bandId);
   const asked = params.get("instrument");
   const instrument = asked && isInstrumentId(asked) ? asked : (membership?.instrument ?? "concert");
   const start = Math.max(0, Number(params.get("tune") ?? 1) - 1) || 0;

@@ -8,24 +8,22 @@ import { PrintSheets } from "@/components/chart/PrintSheets";
 import { buildPerformance } from "@/components/chart/performance";
 import { Button } from "@/components/ui/Button";
 import { Notice } from "@/components/ui/Notice";
-import { INSTRUMENT_SHORT } from "@/components/ui/labels";
-import type { InstrumentId } from "@/lib/validation/common";
+import { instrumentLabel } from "@/components/ui/labels";
 import { useBandRoute } from "@/lib/offline/route";
 import { endingInWords, entryIntro, entryIntroInWords, groupBySet, playOrder, SHARING_CAUTION, type SetlistEntry } from "@/lib/setlist";
-import { useBookCharts, useMyMembership, useSetlist } from "./data";
+import { useBandCharts, useMembership, useSetlist } from "@/lib/offline/hooks";
 import { isInstrumentId } from "@/lib/music/instruments";
 import { keyInWords, partKeyInWords } from "@/lib/music/part-key";
 import { gigWhen } from "./datetime";
 
-const prettyKey = keyInWords;
 
 export function PrintSet() {
   const { bandId, setlistId } = useBandRoute();
   const params = useSearchParams();
   const parts = params.get("parts");
   const loaded = useSetlist(setlistId);
-  const charts = useBookCharts(bandId);
-  const membership = useMyMembership(bandId);
+  const charts = useBandCharts(bandId, { copies: false });
+  const membership = useMembership(bandId);
   // The floor copy names keys in the reader's part (concert labelled), or the part asked for.
   const asked = params.get("instrument");
   const reader = asked && isInstrumentId(asked) ? asked : (membership?.instrument ?? "concert");
@@ -44,7 +42,7 @@ export function PrintSet() {
       <div className="no-print mb-6 flex flex-wrap items-center gap-3">
         <Link href={back} className="underline">← Back to the gig</Link>
         <Button onClick={() => window.print()} data-testid="print-now">
-          {parts ? `Print all ${INSTRUMENT_SHORT[parts as InstrumentId] ?? parts} parts` : "Print the set list"}
+          {parts ? `Print all ${instrumentLabel(parts)} parts` : "Print the set list"}
         </Button>
         <p className="w-full text-sm text-ink-muted">{SHARING_CAUTION}</p>
       </div>
@@ -66,7 +64,7 @@ export function PrintSet() {
                     return (
                       <li key={e.id} className="py-1" data-testid="printed-tune">
                         <span className="font-bold">{i + 1}. {c?.title ?? "?"}</span>{" "}
-                        <span className="whitespace-nowrap" data-testid="printed-key">– {partKeyInWords(e.key ?? c?.concertKey ?? "C", reader)}</span>
+                        <span className="whitespace-nowrap" data-testid="printed-key">– {partKeyInWords(e.key ?? c?.key ?? "C", reader)}</span>
                         <span className="block text-[0.55em] leading-snug">
                           Intro: {entryIntroInWords(e)}
                           {e.tempo ? ` · ♩ = ${e.tempo}` : ""}
@@ -103,7 +101,7 @@ function PartsJob({ entries, charts, instrument }: { entries: SetlistEntry[]; ch
     <div data-testid="parts-job">
       <ol className="no-print list-decimal pl-6">
         {performances.map((p) => (
-          <li key={p.id}>{p.title} — {p.text.partLabel}, written in {prettyKey(p.arrangement.writtenKey)}</li>
+          <li key={p.id}>{p.title} — {p.text.partLabel}, written in {keyInWords(p.arrangement.writtenKey)}</li>
         ))}
       </ol>
       {performances.map((p) => (

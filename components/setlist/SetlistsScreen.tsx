@@ -6,7 +6,8 @@ import { Button } from "@/components/ui/Button";
 import { Notice } from "@/components/ui/Notice";
 import { PageColumn, PageTitle } from "@/components/ui/Page";
 import { useBandRoute } from "@/lib/offline/route";
-import { canEditSetlists, newId, useMyMembership, useSetlistEntryCounts, useSetlists } from "./data";
+import { useMembership, useSetlistEntryCounts, useSetlists } from "@/lib/offline/hooks";
+import { newId } from "@/lib/offline/outbox";
 import { gigWhen } from "./datetime";
 import { can } from "@/lib/band/roles";
 
@@ -15,10 +16,10 @@ export function SetlistsScreen() {
   const router = useRouter();
   const setlists = useSetlists(bandId);
   const counts = useSetlistEntryCounts(bandId);
-  const membership = useMyMembership(bandId);
+  const membership = useMembership(bandId);
   if (!bandId) return null;
   const base = `/bands/${encodeURIComponent(bandId)}/setlists`;
-  const editable = canEditSetlists(membership);
+  const editable = can(membership?.role, "editSetlists");
 
   // Opens an empty draft; the set list is stored only when the leader saves it there.
   function create() {

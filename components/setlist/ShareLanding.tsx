@@ -4,6 +4,7 @@
 import { useState } from "react";
 import { Button } from "@/components/ui/Button";
 import { Notice } from "@/components/ui/Notice";
+import { apiErrorOf } from "@/lib/api-error";
 
 export function ShareLanding({ token, signedInAs, sentTo }: { token: string; signedInAs: string; sentTo: string }) {
   const [busy, setBusy] = useState(false);
@@ -15,9 +16,9 @@ export function ShareLanding({ token, signedInAs, sentTo }: { token: string; sig
     setError(null);
     try {
       const res = await fetch(`/api/shares/${encodeURIComponent(token)}/accept`, { method: "POST" });
-      const body = (await res.json()) as { bandId?: string; setlistId?: string; error?: { message?: string } };
-      if (!res.ok || !body.bandId || !body.setlistId) {
-        setError(body.error?.message ?? "The share could not be opened.");
+      const body = (await res.json().catch(() => null)) as { bandId?: string; setlistId?: string } | null;
+      if (!res.ok || !body?.bandId || !body.setlistId) {
+        setError(apiErrorOf(body, "The share could not be opened.").message);
         setBusy(false);
         return;
       }

@@ -5,7 +5,7 @@ import { useCallback, useEffect, useState } from "react";
 import { Button } from "@/components/ui/Button";
 import { Field, TextAreaField } from "@/components/ui/Field";
 import { Notice } from "@/components/ui/Notice";
-import { readApiError } from "@/components/ui/api-error";
+import { readApiError } from "@/lib/api-error";
 import { SHARING_CAUTION, type ShareState, type WireShare } from "@/lib/setlist";
 import { fromLocalInput, gigWhen, toLocalInput } from "./datetime";
 

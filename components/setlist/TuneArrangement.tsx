@@ -4,6 +4,8 @@
 import { useId } from "react";
 import { Field, SelectField } from "@/components/ui/Field";
 import { INTRO_KINDS, type Chart, type IntroChoice, type IntroKind } from "@/lib/chart/model";
+import { MAJOR_KEYS, MINOR_KEYS } from "@/lib/music/keys";
+import { keyInWords } from "@/lib/music/part-key";
 import {
   checkArrangement,
   describeIntroKind,
@@ -15,8 +17,6 @@ import {
 } from "@/lib/setlist";
 import { analyseInKey, analyseIntro } from "./intro-fit";
 
-const MAJOR_KEYS = ["C", "Db", "D", "Eb", "E", "F", "F#", "Gb", "G", "Ab", "A", "Bb", "B"];
-const MINOR_KEYS = ["Cm", "C#m", "Dm", "Ebm", "Em", "Fm", "F#m", "Gm", "G#m", "Am", "Bbm", "Bm"];
 
 const ENDING_WORDS: Record<EndingKind, string> = {
   "as-written": "As written on the chart",
@@ -36,10 +36,6 @@ function defaultEnding(kind: EndingKind): EndingChoice {
     default:
       return { kind };
   }
-}
-
-function keyWords(k: string): string {
-  return k.replace("b", "♭").replace("#", "♯");
 }
 
 /**
@@ -83,8 +79,8 @@ export function TuneArrangement({ entry, chart, onChange }: { entry: SetlistEntr
         hint={chart ? `The chart is in ${chart.key}. Every part is transposed from this key.` : undefined}
         onChange={(e) => onChange({ ...entry, key: e.target.value || null })}
         options={[
-          { value: "", label: chart ? `As written (${keyWords(chart.key)})` : "As written" },
-          ...keys.filter((k) => k !== chart?.key).map((k) => ({ value: k, label: keyWords(k) })),
+          { value: "", label: chart ? `As written (${keyInWords(chart.key)})` : "As written" },
+          ...keys.filter((k) => k !== chart?.key).map((k) => ({ value: k, label: keyInWords(k) })),
         ]}
         data-testid="tune-key"
       />

@@ -1,17 +1,9 @@
 // The words of every e-mail Pedalpoint sends, each with a plain-text and an HTML part.
 import type { MailMessage } from "./index";
-import { escapeHtml } from "./html";
+import { escapeHtml, mailLayout, utcText } from "./html";
 
 function layout(title: string, paragraphs: string[], button: { label: string; href: string }, footer: string): string {
-  const body = paragraphs.map((p) => `<p style="margin:0 0 16px">${escapeHtml(p)}</p>`).join("");
-  return `<!doctype html><html lang="en"><body style="margin:0;background:#fbfaf7;font-family:system-ui,sans-serif;color:#15171c">
-<div style="max-width:520px;margin:0 auto;padding:32px 24px">
-<h1 style="font-size:20px;margin:0 0 20px">${escapeHtml(title)}</h1>
-${body}
-<p style="margin:24px 0"><a href="${escapeHtml(button.href)}" style="background:#a8620f;color:#ffffff;padding:12px 20px;border-radius:6px;text-decoration:none;font-weight:600">${escapeHtml(button.label)}</a></p>
-<p style="margin:0 0 16px;font-size:13px;color:#5b6170">If the button does not work, paste this address into your browser:<br>${escapeHtml(button.href)}</p>
-<p style="margin:0;font-size:13px;color:#5b6170">${escapeHtml(footer)}</p>
-</div></body></html>`;
+  return mailLayout({ title, paragraphs, button, footer });
 }
 
 const ROLE_WORDS: Record<string, string> = {
@@ -34,8 +26,8 @@ export function inviteMail(p: {
   const lines = [
     `${p.inviterName} invited you to join ${p.bandName} on Pedalpoint as ${role}.`,
     `Pedalpoint keeps the band's book of charts and shows each one in your instrument's key, on your phone or tablet, with or without signal.`,
-    p.accessExpiresAt ? `Your access as a sub ends on ${formatWhen(p.accessExpiresAt)}.` : "",
-    `This link works once and expires on ${formatWhen(p.expiresAt)}.`,
+    p.accessExpiresAt ? `Your access as a sub ends on ${utcText(p.accessExpiresAt)}.` : "",
+    `This link works once and expires on ${utcText(p.expiresAt)}.`,
   ].filter(Boolean);
   const footer = "If you did not expect this invite, you can ignore this e-mail.";
   return {
@@ -75,10 +67,6 @@ export function accountExistsMail(p: { to: string; link: string; minutes: number
   };
 }
 
-function formatWhen(iso: string): string {
-  const d = new Date(iso);
-  return `${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;
-}
 
 export interface DigestChart {
   title: string;
@@ -114,14 +102,14 @@ ${notes(c).map((m) => `<br><span>“${escapeHtml(m)}”</span>`).join("")}
 </li>`,
     )
     .join("");
-  const html = `<!doctype html><html lang="en"><body style="margin:0;background:#fbfaf7;font-family:system-ui,sans-serif;color:#15171c">
-<div style="max-width:520px;margin:0 auto;padding:32px 24px">
-<h1 style="font-size:20px;margin:0 0 20px">${escapeHtml(`Charts updated in ${p.bandName}`)}</h1>
-<p style="margin:0 0 16px">${escapeHtml(intro)}</p>
-<ul style="margin:0 0 16px;padding-left:20px">${htmlItems}</ul>
-<p style="margin:24px 0"><a href="${escapeHtml(p.libraryLink)}" style="background:#a8620f;color:#ffffff;padding:12px 20px;border-radius:6px;text-decoration:none;font-weight:600">Open the library</a></p>
-<p style="margin:0;font-size:13px;color:#5b6170">${escapeHtml(footer)}</p>
-</div></body></html>`;
+  const html = mailLayout({
+    title: `Charts updated in ${p.bandName}`,
+    paragraphs: [intro],
+    listHtml: `<ul style="margin:0 0 16px;padding-left:20px">${htmlItems}</ul>`,
+    button: { label: "Open the library", href: p.libraryLink },
+    spellAddress: false,
+    footer,
+  });
   return {
     to: p.to,
     subject: `${p.bandName}: ${count} updated`,

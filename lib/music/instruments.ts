@@ -12,7 +12,12 @@ export interface Transpose {
 
 export interface Instrument {
   id: InstrumentId;
+  /** The words in the corner of a page: "B♭ part". */
   label: string;
+  /** In a sentence or a tight space: "B♭", "Bass clef". */
+  short: string;
+  /** Who reads it, for the pickers. */
+  readBy: string;
   clef: "treble" | "bass";
   transpose: Transpose;
   /**
@@ -23,17 +28,19 @@ export interface Instrument {
 }
 
 export const INSTRUMENTS: Record<InstrumentId, Instrument> = {
-  concert: { id: "concert", label: "Concert", clef: "treble", transpose: { diatonic: 0, chromatic: 0, octaveChange: 0 }, melodyOctave: 0 },
+  concert: { id: "concert", label: "Concert", short: "Concert", readBy: "piano, guitar, voice, vibes", clef: "treble", transpose: { diatonic: 0, chromatic: 0, octaveChange: 0 }, melodyOctave: 0 },
   "concert-bass": {
     id: "concert-bass",
     label: "Concert, bass clef",
+    short: "Bass clef",
+    readBy: "bass, trombone",
     clef: "bass",
     transpose: { diatonic: 0, chromatic: 0, octaveChange: 0 },
     melodyOctave: -1,
   },
-  bb: { id: "bb", label: "B♭ part", clef: "treble", transpose: { diatonic: -1, chromatic: -2, octaveChange: 0 }, melodyOctave: 0 },
-  eb: { id: "eb", label: "E♭ part", clef: "treble", transpose: { diatonic: -5, chromatic: -9, octaveChange: 0 }, melodyOctave: -1 },
-  f: { id: "f", label: "F part", clef: "treble", transpose: { diatonic: -4, chromatic: -7, octaveChange: 0 }, melodyOctave: 0 },
+  bb: { id: "bb", label: "B♭ part", short: "B♭", readBy: "trumpet, tenor sax, clarinet", clef: "treble", transpose: { diatonic: -1, chromatic: -2, octaveChange: 0 }, melodyOctave: 0 },
+  eb: { id: "eb", label: "E♭ part", short: "E♭", readBy: "alto and baritone sax", clef: "treble", transpose: { diatonic: -5, chromatic: -9, octaveChange: 0 }, melodyOctave: -1 },
+  f: { id: "f", label: "F part", short: "F", readBy: "horn", clef: "treble", transpose: { diatonic: -4, chromatic: -7, octaveChange: 0 }, melodyOctave: 0 },
 };
 
 export function isInstrumentId(x: unknown): x is InstrumentId {

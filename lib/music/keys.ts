@@ -9,6 +9,14 @@ export interface KeyInfo {
   name: string;
 }
 
+/**
+ * The keys a picker offers, as they are usually spelt (common practice: the flat side for D♭, E♭, A♭,
+ * B♭, both F♯ and G♭ for the six-accidental major key; C♯m, F♯m and G♯m on the sharp side, E♭m and B♭m
+ * rather than D♯m and A♯m).
+ */
+export const MAJOR_KEYS = ["C", "Db", "D", "Eb", "E", "F", "F#", "Gb", "G", "Ab", "A", "Bb", "B"] as const;
+export const MINOR_KEYS = ["Cm", "C#m", "Dm", "Ebm", "Em", "Fm", "F#m", "Gm", "G#m", "Am", "Bbm", "Bm"] as const;
+
 const KEY_RE = /^([A-Ga-g])([b#♭♯]?)\s*(m|min|minor|-|maj|major|M)?$/;
 
 /** Reads "Eb", "Cm", "C minor", "F# major", "Bbm". Returns null when it isn't a key name. */

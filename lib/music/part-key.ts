@@ -2,9 +2,15 @@
 import { concertToWrittenInterval, INSTRUMENTS, isInstrumentId } from "./instruments";
 import { writtenKey } from "./transpose";
 
-/** "B♭" from "Bb", "F♯m" from "F#m". */
+/** "B♭" from "Bb", "F♯m" from "F#m": the one way a key is shown. */
 export function keyInWords(key: string): string {
   return key.replace(/^([A-G])b/, "$1♭").replace(/^([A-G])#/, "$1♯");
+}
+
+/** "B♭ major" from "Bb", "F♯ minor" from "F#m". */
+export function keyNameInWords(key: string): string {
+  const minor = key.endsWith("m");
+  return `${keyInWords(minor ? key.slice(0, -1) : key)} ${minor ? "minor" : "major"}`;
 }
 
 /** Whether a part reads at concert pitch (concert, concert-bass) or transposes (bb, eb, f). */

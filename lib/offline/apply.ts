@@ -2,32 +2,18 @@
 // its cursor, so a failure (a full disk, a closed tab) leaves the book as it was before the page.
 import type { LocalBook } from "./db";
 import { deleteChartLocally } from "./db";
-import type { PullResponse, WireChart, WireSetlist, WireAnnotation, WireAttachment } from "./protocol";
-import type { ChartRow, LocalRevision } from "./types";
+import type { WireChart, WireMark, WirePart, WireSetlist } from "@/lib/wire";
+import type { PullResponse } from "./protocol";
+import type { ChartRow, LocalMark, LocalPart, LocalRevision } from "./types";
 
 /** A chart as the device stores it, with the "changed since you last opened it" mark worked out. */
 export function chartRowFrom(w: WireChart, prev: ChartRow | undefined, me: string | null, baseline: boolean): ChartRow {
-  const mine = me !== null && w.updatedBy === me;
+  const mine = me !== null && w.updatedBy.id === me;
   let seen = prev ? prev.seenRevision : baseline ? w.revision : 0;
   if (mine) seen = Math.max(seen, w.revision);
-  return {
-    id: w.id,
-    bandId: w.bandId,
-    title: w.title,
-    composer: w.composer,
-    concertKey: w.concertKey,
-    meter: w.meter,
-    tempo: w.tempo,
-    feel: w.feel,
-    body: w.body,
-    sourceText: w.sourceText,
-    revision: w.revision,
-    updatedAt: w.updatedAt,
-    updatedBy: w.updatedBy,
-    updatedByName: w.updatedByName,
-    seenRevision: seen,
-    unseen: !mine && w.revision > seen,
-  };
+  const row: ChartRow & { history?: unknown } = { ...w, seenRevision: seen, unseen: !mine && w.revision > seen };
+  delete row.history; // kept in the revisions table
+  return row;
 }
 
 export function revisionsFrom(w: WireChart): LocalRevision[] {
@@ -48,7 +34,8 @@ async function pendingIds(book: LocalBook, bandId: string): Promise<Set<string>>
   return new Set(items.filter((i) => i.status === "pending").map((i) => i.entityId));
 }
 
-async function putSetlist(book: LocalBook, bandId: string, s: WireSetlist): Promise<void> {
+/** Stores a set list and replaces its entries. */
+export async function putSetlist(book: LocalBook, bandId: string, s: WireSetlist): Promise<void> {
   const { entries, ...list } = s;
   await book.setlists.put({ ...list, bandId });
   await book.setlistEntries.where("setlistId").equals(s.id).delete();
@@ -88,12 +75,12 @@ export async function applyPullPage(book: LocalBook, bandId: string, page: PullR
         } else await putSetlist(book, bandId, c.data);
       } else if (c.entity === "annotation") {
         if (c.op === "delete") await book.annotations.delete(c.id);
-        else await book.annotations.put(annotationFrom(bandId, c.data));
+        else await book.annotations.put(markFrom(bandId, c.data));
       } else if (c.entity === "attachment") {
         if (c.op === "delete") {
           await book.attachments.delete(c.id);
           await book.attachmentFiles.delete(c.id);
-        } else await book.attachments.put(attachmentFrom(bandId, c.data));
+        } else await book.attachments.put(partFrom(bandId, c.data));
       }
     }
     await book.charts.bulkPut(rows);
@@ -108,11 +95,11 @@ export async function applyPullPage(book: LocalBook, bandId: string, page: PullR
   });
 }
 
-function annotationFrom(bandId: string, a: WireAnnotation) {
-  return { id: a.id, bandId, chartId: a.chartId, revision: a.revision, updatedAt: a.updatedAt, data: a.data };
+function markFrom(bandId: string, a: WireMark): LocalMark {
+  return { ...a, bandId };
 }
 
-function attachmentFrom(bandId: string, a: WireAttachment) {
+function partFrom(bandId: string, a: WirePart): LocalPart {
   return { ...a, bandId };
 }
 

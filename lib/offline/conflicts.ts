@@ -2,9 +2,10 @@
 // Resolving a conflict copy: the device's version of a chart that clashed with a newer one on the
 // server. Nothing happens to it until someone decides; a leader or arranger can publish it.
 import { getLocalBook } from "./db";
-import { saveChart, type SaveResult } from "./mutations";
+import { saveChart } from "./mutations";
+import type { SaveResult } from "./send";
 import { COPY_SUFFIX } from "./push";
-import type { ChartRow } from "./types";
+import type { ChartRow, LocalChart } from "./types";
 
 async function load(copyId: string): Promise<{ copy: ChartRow; original: ChartRow | null } | null> {
   const book = getLocalBook();
@@ -14,7 +15,7 @@ async function load(copyId: string): Promise<{ copy: ChartRow; original: ChartRo
 }
 
 function inputOf(copy: ChartRow, title: string, message: string) {
-  return { title, composer: copy.composer, key: copy.concertKey, meter: copy.meter, tempo: copy.tempo, feel: copy.feel, sourceText: copy.sourceText, message };
+  return { title, composer: copy.composer, key: copy.key, meter: copy.meter, tempo: copy.tempo, feel: copy.feel, sourceText: copy.sourceText, message };
 }
 
 export async function discardCopy(copyId: string): Promise<void> {
@@ -28,7 +29,7 @@ export async function discardCopy(copyId: string): Promise<void> {
 const cleanTitle = (t: string) => (t.endsWith(COPY_SUFFIX) ? t.slice(0, -COPY_SUFFIX.length) : t);
 
 /** Publishes this device's version as the chart's next revision, on top of the band's current one. */
-export async function publishCopy(copyId: string): Promise<SaveResult | null> {
+export async function publishCopy(copyId: string): Promise<SaveResult<LocalChart> | null> {
   const got = await load(copyId);
   if (!got) return null;
   const { copy, original } = got;
@@ -41,7 +42,7 @@ export async function publishCopy(copyId: string): Promise<SaveResult | null> {
 }
 
 /** Keeps both: the device's version becomes a chart of its own. */
-export async function saveCopyAsNewChart(copyId: string): Promise<SaveResult | null> {
+export async function saveCopyAsNewChart(copyId: string): Promise<SaveResult<LocalChart> | null> {
   const got = await load(copyId);
   if (!got) return null;
   const result = await saveChart(got.copy.bandId, inputOf(got.copy, got.copy.title, "Saved from a version edited offline"));

@@ -4,9 +4,9 @@ import Dexie, { type DexieOptions, type EntityTable, type Table } from "dexie";
 import type {
   ChartRow,
   ConflictRow,
-  LocalAnnotation,
-  LocalAttachment,
-  LocalAttachmentFile,
+  LocalMark,
+  LocalPart,
+  LocalPartFile,
   LocalBand,
   LocalMember,
   LocalMembership,
@@ -26,9 +26,9 @@ export class LocalBook extends Dexie {
   revisions!: Table<LocalRevision, [string, number]>;
   setlists!: EntityTable<LocalSetlist, "id">;
   setlistEntries!: EntityTable<LocalSetlistEntry, "id">;
-  annotations!: EntityTable<LocalAnnotation, "id">;
-  attachments!: EntityTable<LocalAttachment, "id">;
-  attachmentFiles!: EntityTable<LocalAttachmentFile, "id">;
+  annotations!: EntityTable<LocalMark, "id">;
+  attachments!: EntityTable<LocalPart, "id">;
+  attachmentFiles!: EntityTable<LocalPartFile, "id">;
   syncState!: EntityTable<SyncStateRow, "bandId">;
   outbox!: EntityTable<OutboxItem, "seq">;
   conflicts!: EntityTable<ConflictRow, "id">;
@@ -52,6 +52,13 @@ export class LocalBook extends Dexie {
       conflicts: "id, bandId, entityId",
       session: "key",
     });
+    // Chart rows took the wire chart's shape: `key` and `updatedBy: { id, name }` (were concertKey, updatedBy + updatedByName).
+    this.version(2).upgrade(async (tx) => {
+      await tx.table("charts").toCollection().modify((row: Record<string, unknown>) => toWireChartFields(row));
+      await tx.table("outbox").toCollection().modify((item: { before?: Record<string, unknown> | null }) => {
+        if (item.before) toWireChartFields(item.before);
+      });
+    });
   }
 
   /** Every table holding one band's data (not the session). */
@@ -61,6 +68,16 @@ export class LocalBook extends Dexie {
       this.annotations, this.attachments, this.syncState, this.outbox, this.conflicts,
     ];
   }
+}
+
+/** Rewrites a chart row stored before version 2 in place. */
+function toWireChartFields(row: Record<string, unknown>): void {
+  // A tab still running the old code may have stored a feed row in the new shape under old names: keep what is there.
+  if (typeof row.key !== "string") row.key = typeof row.concertKey === "string" ? row.concertKey : ((row.body as { key?: string } | undefined)?.key ?? "");
+  if (typeof row.updatedBy !== "object" || row.updatedBy === null) row.updatedBy = { id: row.updatedBy ?? "", name: row.updatedByName ?? "" };
+  row.deletedAt ??= null;
+  delete row.concertKey;
+  delete row.updatedByName;
 }
 
 let shared: LocalBook | null = null;

@@ -5,8 +5,10 @@ import { useLiveQuery } from "dexie-react-hooks";
 import { useSyncExternalStore } from "react";
 import { getLocalBook } from "./db";
 import { clearDevice, getSyncEngine, type EngineState } from "./sync";
+import { readMark } from "@/lib/setlist";
 import type {
-  ChartRow, ConflictRow, LocalBand, LocalChart, LocalMember, LocalMembership, LocalRevision, LocalSession, OutboxItem, SyncStatus,
+  ChartRow, ConflictRow, LocalBand, LocalChart, LocalMark, LocalMember, LocalMembership, LocalRevision, LocalSession, LocalSetlist,
+  LocalSetlistEntry, OutboxItem, SyncStatus,
 } from "./types";
 
 export type { LocalBand, LocalChart, LocalMember, LocalMembership, LocalRevision, LocalSession, SyncStatus } from "./types";
@@ -37,13 +39,16 @@ export function useMembership(bandId: string | null | undefined): LocalMembershi
   return useLiveQuery(async () => (bandId ? ((await getLocalBook().memberships.get(bandId)) ?? null) : null), [bandId]);
 }
 
-/** The band's charts on this device, by title; conflict copies sit beside the chart they belong to. */
-export function useBandCharts(bandId: string | null | undefined): LocalChart[] | undefined {
+/**
+ * The band's charts on this device, by title. Conflict copies sit beside the chart they belong to,
+ * unless `copies` is false (a set list picks from the book itself).
+ */
+export function useBandCharts(bandId: string | null | undefined, { copies = true }: { copies?: boolean } = {}): LocalChart[] | undefined {
   return useLiveQuery(async () => {
     if (!bandId) return [];
     const rows = await getLocalBook().charts.where("bandId").equals(bandId).toArray();
-    return rows.filter((r) => !r.deleted).sort(byTitle).map(toChart);
-  }, [bandId]);
+    return rows.filter((r) => !r.deleted && (copies || !r.conflictOf)).sort(byTitle).map(toChart);
+  }, [bandId, copies]);
 }
 
 export function useChart(bandId: string | null | undefined, chartId: string | null | undefined): LocalChart | null | undefined {
@@ -70,6 +75,64 @@ export function useMembers(bandId: string | null | undefined): LocalMember[] | u
     const list = await getLocalBook().members.where("bandId").equals(bandId).toArray();
     return list.sort((a, b) => a.name.localeCompare(b.name));
   }, [bandId]);
+}
+
+/** The band's set lists, latest gig first. */
+export function useSetlists(bandId: string | null): LocalSetlist[] | undefined {
+  return useLiveQuery(async () => {
+    if (!bandId) return [];
+    const rows = await getLocalBook().setlists.where("bandId").equals(bandId).toArray();
+    return rows.sort((a, b) => (b.startsAt ?? "").localeCompare(a.startsAt ?? "") || a.name.localeCompare(b.name));
+  }, [bandId]);
+}
+
+/** How many tunes each of the band's set lists holds. */
+export function useSetlistEntryCounts(bandId: string | null): Map<string, number> | undefined {
+  return useLiveQuery(async () => {
+    const counts = new Map<string, number>();
+    if (!bandId) return counts;
+    for (const e of await getLocalBook().setlistEntries.where("bandId").equals(bandId).toArray()) {
+      counts.set(e.setlistId, (counts.get(e.setlistId) ?? 0) + 1);
+    }
+    return counts;
+  }, [bandId]);
+}
+
+export interface LoadedSetlist {
+  setlist: LocalSetlist;
+  entries: LocalSetlistEntry[];
+}
+
+/** One set list with its entries in play order; undefined while opening, null when this device does not hold it. */
+export function useSetlist(setlistId: string | null): LoadedSetlist | null | undefined {
+  return useLiveQuery(async () => {
+    if (!setlistId) return null;
+    const book = getLocalBook();
+    const setlist = await book.setlists.get(setlistId);
+    if (!setlist) return null;
+    const entries = await book.setlistEntries.where("setlistId").equals(setlistId).toArray();
+    entries.sort((a, b) => a.setNumber - b.setNumber || a.position - b.position);
+    return { setlist, entries };
+  }, [setlistId]);
+}
+
+/** True once this device has finished a sync of the band (so a missing row is really missing). */
+export function useHasSynced(bandId: string | null): boolean | undefined {
+  return useLiveQuery(async () => (bandId ? Boolean((await getLocalBook().syncState.get(bandId))?.lastSyncedAt) : false), [bandId]);
+}
+
+/** This user's marks on the given charts (marks only ever reach their owner's devices). */
+export function useMyMarks(chartIds: readonly string[]): LocalMark[] | undefined {
+  const key = chartIds.join(",");
+  return useLiveQuery(async () => {
+    if (chartIds.length === 0) return [];
+    const rows = await getLocalBook().annotations.where("chartId").anyOf([...chartIds]).toArray();
+    // A mark written by a newer version of the app may not read here: it is left out, not shown wrong.
+    return rows.flatMap((r) => {
+      const data = readMark(r.data);
+      return data ? [{ ...r, data }] : [];
+    });
+  }, [key]);
 }
 
 /** Conflict copies on this device (one band or all). */

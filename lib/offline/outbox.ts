@@ -65,8 +65,15 @@ export function toMutation(i: OutboxItem): Mutation {
   return { mutationId: i.mutationId, entity: i.entity, id: i.entityId, op: i.op, baseRevision: i.baseRevision, data: i.data };
 }
 
+export interface DueOptions {
+  now: Date;
+  /** Ignore the backoff (the user pressed "sync now"). */
+  force?: boolean;
+  max?: number;
+}
+
 /** Items to send now, oldest first, at most one per row (a later edit waits for the earlier answer). */
-export async function dueItems(book: LocalBook, bandId: string, now: Date, force: boolean, max = 100): Promise<OutboxItem[]> {
+export async function dueItems(book: LocalBook, bandId: string, { now, force = false, max = 100 }: DueOptions): Promise<OutboxItem[]> {
   const all = (await book.outbox.where("bandId").equals(bandId).toArray())
     .filter((i) => i.status === "pending")
     .sort((a, b) => (a.seq ?? 0) - (b.seq ?? 0));

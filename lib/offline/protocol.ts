@@ -1,120 +1,20 @@
 // The sync wire format shared by the server feed (lib/server/sync*) and the device (lib/offline).
-// Pure types and small zod schemas: no Dexie, no React, no database.
+// Pure types and small zod schemas: no Dexie, no React, no database. The entities travel in the
+// shapes of lib/wire.ts.
 import { z } from "zod";
-import type { Chart, IntroChoice } from "@/lib/chart/model";
 import type { Role } from "@/lib/band/roles";
+import type { WireChart, WireMark, WireMember, WireMembership, WirePart, WireSetlist } from "@/lib/wire";
 
-/** Composer, key, meter, tempo and feel as they stood at a revision (stored by the backend as meta_json). */
-export type RevisionMeta = Record<string, unknown>;
-
-export interface WireRevision {
-  revision: number;
-  title: string;
-  message: string;
-  authorName: string;
-  createdAt: string;
-  /** Null for the chart's current revision: its text is the chart's own `sourceText` (sent once). */
-  sourceText: string | null;
-  meta: RevisionMeta;
-}
-
-export interface WireChart {
-  id: string;
-  bandId: string;
-  title: string;
-  composer: string;
-  concertKey: string;
-  meter: string;
-  tempo: number | null;
-  feel: string;
-  revision: number;
-  updatedAt: string;
-  updatedBy: string;
-  updatedByName: string;
-  sourceText: string;
-  /** The latest revisions, newest first (the history list). */
-  history: WireRevision[];
-  body: Chart;
-}
-
-export interface WireSetlistEntry {
-  id: string;
-  setlistId: string;
-  setNumber: number;
-  position: number;
-  chartId: string;
-  key: string | null;
-  intro: IntroChoice | null;
-  ending: unknown;
-  tempo: number | null;
-  soloOrder: string;
-  /** Missing on rows stored before choruses were counted: read as 1. */
-  choruses?: number;
-  /** Missing on older rows: read as false. */
-  straightIn?: boolean;
-  notes: string;
-}
-
-export interface WireSetlist {
-  id: string;
-  bandId: string;
-  name: string;
-  startsAt: string | null;
-  venue: string;
-  notes: string;
-  /** The leader's length for each set in minutes (index 0 = set 1); missing on older rows. */
-  setMinutes?: (number | null)[];
-  revision: number;
-  updatedAt: string;
-  updatedBy: string;
-  entries: WireSetlistEntry[];
-}
-
-export interface WireAnnotation {
-  id: string;
-  chartId: string;
-  revision: number;
-  updatedAt: string;
-  data: unknown;
-}
-
-export interface WireAttachment {
-  id: string;
-  chartId: string;
-  filename: string;
-  sha256: string;
-  size: number;
-  type: string;
-  pages: number | null;
-  createdAt: string;
-  /** The part's name and instrument id (null on parts uploaded before they were asked). */
-  partName?: string | null;
-  instrument?: string | null;
-}
-
-export interface WireMember {
-  userId: string;
-  name: string;
-  email: string;
-  role: Role;
-  instrument: string;
-  expiresAt: string | null;
-}
-
-export interface WireMembership {
-  bandId: string;
-  role: Role;
-  instrument: string;
-  expiresAt: string | null;
-}
+/** The feed always sends a chart with its history list. */
+export type FeedChart = WireChart & Required<Pick<WireChart, "history">>;
 
 export type PullEntity = "chart" | "setlist" | "annotation" | "attachment";
 
 export type Change =
-  | { entity: "chart"; id: string; op: "upsert"; data: WireChart }
+  | { entity: "chart"; id: string; op: "upsert"; data: FeedChart }
   | { entity: "setlist"; id: string; op: "upsert"; data: WireSetlist }
-  | { entity: "annotation"; id: string; op: "upsert"; data: WireAnnotation }
-  | { entity: "attachment"; id: string; op: "upsert"; data: WireAttachment }
+  | { entity: "annotation"; id: string; op: "upsert"; data: WireMark }
+  | { entity: "attachment"; id: string; op: "upsert"; data: WirePart }
   | { entity: PullEntity; id: string; op: "delete"; data?: undefined };
 
 export interface PullResponse {
@@ -154,8 +54,8 @@ export type MutationIn = z.input<typeof MutationSchema>;
 export const PushBodySchema = z.object({ mutations: z.array(MutationSchema).max(200) }).strict();
 
 export type MutationResult =
-  | { mutationId: string; status: "applied"; revision: number; data?: WireChart | WireSetlist | WireAnnotation | null }
-  | { mutationId: string; status: "conflict"; current: WireChart | WireSetlist | WireAnnotation | null }
+  | { mutationId: string; status: "applied"; revision: number; data?: WireChart | WireSetlist | WireMark | null }
+  | { mutationId: string; status: "conflict"; current: WireChart | WireSetlist | WireMark | null }
   | { mutationId: string; status: "rejected"; reason: string; fields?: { field: string; message: string }[] };
 
 export interface PushResponse {

@@ -5,7 +5,8 @@ import { putServerChart } from "./apply";
 import type { LocalBook } from "./db";
 import { deleteChartLocally } from "./db";
 import { backOff, dueItems, markAttempted, newId, toMutation } from "./outbox";
-import type { MutationResult, PushResponse, WireChart } from "./protocol";
+import type { WireChart } from "@/lib/wire";
+import type { MutationResult, PushResponse } from "./protocol";
 import { AccessLostError, AuthError, NetworkError, ServerError, type Transport } from "./transport";
 import type { ChartRow, OutboxItem } from "./types";
 
@@ -101,7 +102,7 @@ export async function pushOutbox(book: LocalBook, transport: Transport, bandId: 
   const now = opts.now ?? (() => new Date());
   const sum: PushSummary = { sent: 0, applied: 0, conflicts: 0, rejected: 0 };
   for (let round = 0; round < 50; round++) {
-    const batch = await dueItems(book, bandId, now(), opts.force ?? false);
+    const batch = await dueItems(book, bandId, { now: now(), force: opts.force });
     if (batch.length === 0) break;
     await markAttempted(book, batch);
     let res: Response;

@@ -1,7 +1,7 @@
 // The device's sync engine: who is signed in and in which bands (bootstrap), then per band push the
 // outbox and pull the feed. One run at a time; a request during a run schedules one more run.
 // What starts a run lives in triggers.ts (pages) and worker/sw.ts (Background Sync).
-import { fetchMissingAttachmentFiles } from "./attachments";
+import { fetchMissingPartFiles } from "./parts";
 import type { LocalBook } from "./db";
 import { deleteBandData, getLocalBook } from "./db";
 import type { BootstrapResponse } from "./protocol";
@@ -107,7 +107,7 @@ export class SyncEngine {
       // Readiness for tonight: what this device now holds, sent only after a pull that reached the server.
       await reportHoldings(book, this.transport, bandId).catch(() => undefined);
       // PDF and image parts follow their metadata onto the device, for reading with no signal.
-      await fetchMissingAttachmentFiles(book, bandId, { fetcher: (url, init) => this.transport.fetch(url, init) }).catch(() => undefined);
+      await fetchMissingPartFiles(book, bandId, { fetcher: (url, init) => this.transport.fetch(url, init) }).catch(() => undefined);
     } catch (err) {
       if (!(err instanceof AccessLostError)) throw err;
       await deleteBandData(book, bandId);

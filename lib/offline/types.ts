@@ -1,7 +1,7 @@
 // What the UI reads from the local book. Rows in Dexie carry a few internal fields on top.
-import type { Chart } from "@/lib/chart/model";
 import type { Role } from "@/lib/band/roles";
-import type { MutationIn, RevisionMeta, WireAnnotation, WireAttachment, WireSetlist, WireSetlistEntry } from "./protocol";
+import type { WireChart, WireMark, WireMember, WireMembership, WirePart, WireRevision, WireSetlist, WireSetlistEntry } from "@/lib/wire";
+import type { MutationIn } from "./protocol";
 
 export interface LocalSession {
   userId: string;
@@ -16,44 +16,17 @@ export interface LocalBand {
   instrument: string;
 }
 
-export interface LocalMembership {
-  bandId: string;
-  role: Role;
-  instrument: string;
-  expiresAt: string | null;
-}
+export type LocalMembership = WireMembership;
 
-export interface LocalMember {
-  bandId: string;
-  userId: string;
-  name: string;
-  email: string;
-  role: Role;
-  instrument: string;
-  expiresAt: string | null;
-}
+export type LocalMember = WireMember & { bandId: string };
 
-export interface LocalChart {
-  id: string;
-  bandId: string;
-  title: string;
-  composer: string;
-  concertKey: string;
-  meter: string;
-  tempo: number | null;
-  feel: string;
-  body: Chart;
-  sourceText: string;
-  /** The server revision this row is (or, with unsent edits, was) based on; 0 for a chart made offline. */
-  revision: number;
-  updatedAt: string;
-  updatedBy: string;
-  updatedByName: string;
+/** A chart on this device. `revision` is the server revision the row is (or, with unsent edits, was) based on; 0 for a chart made offline. */
+export type LocalChart = Omit<WireChart, "history"> & {
   /** Changed by someone else since this user last opened it. */
   unseen: boolean;
   /** Set on a conflict copy: the id of the chart it was meant to change. */
   conflictOf?: string;
-}
+};
 
 /** Internal fields of a stored chart row. */
 export interface ChartRow extends LocalChart {
@@ -67,34 +40,23 @@ export interface ChartRow extends LocalChart {
   localEdit?: boolean;
 }
 
-export interface LocalRevision {
-  chartId: string;
-  bandId: string;
-  revision: number;
-  title: string;
-  message: string;
-  authorName: string;
-  createdAt: string;
-  sourceText: string;
-  meta: RevisionMeta;
-}
+export type LocalRevision = Omit<WireRevision, "sourceText"> & { chartId: string; bandId: string; sourceText: string };
 
-export type LocalSetlist = Omit<WireSetlist, "entries">;
+/** Rows stored by an older version may lack fields added since: `Partial` marks those. */
+type StoredBefore<T, K extends keyof T> = Omit<T, K> & Partial<Pick<T, K>>;
 
-export interface LocalSetlistEntry extends WireSetlistEntry {
-  bandId: string;
-}
+/** Missing `setMinutes` reads as no lengths set. */
+export type LocalSetlist = StoredBefore<Omit<WireSetlist, "entries">, "setMinutes">;
 
-export interface LocalAnnotation extends WireAnnotation {
-  bandId: string;
-  localEdit?: boolean;
-}
+/** Missing `choruses` reads as 1, missing `straightIn` as false. */
+export type LocalSetlistEntry = StoredBefore<WireSetlistEntry, "choruses" | "straightIn"> & { bandId: string };
 
-export interface LocalAttachment extends WireAttachment {
-  bandId: string;
-}
+export type LocalMark = WireMark & { bandId: string; localEdit?: boolean };
 
-export interface LocalAttachmentFile {
+/** Missing `partName` and `instrument` read as not given. */
+export type LocalPart = StoredBefore<WirePart, "partName" | "instrument"> & { bandId: string };
+
+export interface LocalPartFile {
   /** Attachment id. */
   id: string;
   blob: Blob;

@@ -4,7 +4,8 @@ import "server-only";
 import { ChartTextError, assertChartTextSize, joinChartText } from "@/lib/chart";
 import type { Chart } from "@/lib/chart/model";
 import type { ChartRow } from "@/db/schema";
-import type { ChartDto, ChartInput } from "@/lib/validation/chart-input";
+import type { ChartInput } from "@/lib/validation/chart-input";
+import type { WireChart } from "@/lib/wire";
 import { AppError } from "./errors";
 
 export interface ChartMeta {
@@ -49,9 +50,8 @@ export function prepareChart(input: Pick<ChartInput, "title" | "composer" | "key
   };
 }
 
-export type { ChartDto };
-
-export type ChartSummary = Omit<ChartDto, "sourceText" | "body">;
+/** A chart in the library list: the wire chart without its text. */
+export type ChartSummary = Omit<WireChart, "sourceText" | "body" | "history">;
 
 export function toChartSummary(row: ChartRow, authorName: string): ChartSummary {
   return {
@@ -70,6 +70,6 @@ export function toChartSummary(row: ChartRow, authorName: string): ChartSummary 
   };
 }
 
-export function toChartDto(row: ChartRow, authorName: string): ChartDto {
+export function toWireChart(row: ChartRow, authorName: string): WireChart {
   return { ...toChartSummary(row, authorName), sourceText: row.source_text, body: JSON.parse(row.body_json) as Chart };
 }

@@ -6,11 +6,12 @@ import type { ChartRow, Database } from "@/db/schema";
 import { ChartTextError } from "@/lib/chart";
 import { requireChartReader } from "./chart-access";
 import { requireMember, type Actor, signedIn } from "./access";
-import { prepareChart, toChartDto, type ChartDto, type ChartMeta, type PreparedChart } from "./chart-body";
+import { prepareChart, toWireChart, type ChartMeta, type PreparedChart } from "./chart-body";
 import { loadChartRow, writeRevision } from "./chart-store";
 import { assertPlanAllows } from "./billing";
 import { AppError } from "./errors";
 import { nowIso } from "./tokens";
+import type { WireChart } from "@/lib/wire";
 
 export interface RevisionDto {
   revision: number;
@@ -51,7 +52,7 @@ export async function restoreRevision(
   bandId: string,
   chartId: string,
   revision: number,
-): Promise<ChartDto> {
+): Promise<WireChart> {
   await requireMember(db, actor, bandId, "editCharts");
   const me = signedIn(actor);
   const old = await db
@@ -96,5 +97,5 @@ export async function restoreRevision(
     await writeRevision(trx, next, prepared, `Restored revision ${revision}`);
     return next;
   });
-  return toChartDto(row, me.name);
+  return toWireChart(row, me.name);
 }

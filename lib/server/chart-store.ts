@@ -3,10 +3,11 @@ import "server-only";
 import type { Kysely, Transaction } from "kysely";
 import type { ChartRow, Database } from "@/db/schema";
 import { ChartSchema } from "@/lib/chart/model";
-import { reanchorChartMarks } from "./annotations";
+import { reanchorChartMarks } from "./marks";
 import { recordChange } from "./changes";
-import { toChartDto, type ChartDto, type PreparedChart } from "./chart-body";
+import { toWireChart, type PreparedChart } from "./chart-body";
 import { newId } from "./tokens";
+import type { WireChart } from "@/lib/wire";
 
 export type Db = Kysely<Database> | Transaction<Database>;
 
@@ -19,8 +20,8 @@ export async function loadChartRow(db: Db, bandId: string, chartId: string): Pro
   return db.selectFrom("charts").selectAll().where("id", "=", chartId).where("band_id", "=", bandId).executeTakeFirst();
 }
 
-export async function chartDto(db: Db, row: ChartRow): Promise<ChartDto> {
-  return toChartDto(row, await authorName(db, row.updated_by));
+export async function wireChart(db: Db, row: ChartRow): Promise<WireChart> {
+  return toWireChart(row, await authorName(db, row.updated_by));
 }
 
 /** Writes one published revision: the chart row is already updated or inserted by the caller. */

@@ -6,14 +6,14 @@ import type { ChartRow, Database } from "@/db/schema";
 import { ChartCreateSchema, ChartUpdateSchema } from "@/lib/validation/chart-input";
 import { requireChartReader } from "./chart-access";
 import { requireMember, type Actor, signedIn } from "./access";
-import { prepareChart, toChartDto, toChartSummary, type ChartDto, type ChartSummary } from "./chart-body";
-import { chartDto, loadChartRow, rowFields, writeRevision, type Db } from "./chart-store";
+import { prepareChart, toWireChart, toChartSummary, type ChartSummary } from "./chart-body";
+import { wireChart, loadChartRow, rowFields, writeRevision, type Db } from "./chart-store";
 import { assertPlanAllows } from "./billing";
 import { AppError } from "./errors";
 import { parseInput } from "./input";
 import { newId, nowIso } from "./tokens";
+import type { WireChart } from "@/lib/wire";
 
-export type { ChartDto, ChartSummary } from "./chart-body";
 export { listRevisions, restoreRevision, type RevisionDto } from "./chart-revisions";
 
 export async function listCharts(
@@ -34,14 +34,14 @@ export async function listCharts(
   return rows.map(({ author_name, ...row }) => toChartSummary(row, author_name ?? "someone"));
 }
 
-export async function getChart(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string): Promise<ChartDto> {
+export async function getChart(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string): Promise<WireChart> {
   await requireChartReader(db, actor, bandId, chartId);
   const row = await loadChartRow(db, bandId, chartId);
   if (!row || row.deleted_at) throw new AppError("not_found", "That chart was not found.");
-  return chartDto(db, row);
+  return wireChart(db, row);
 }
 
-export async function createChart(db: Kysely<Database>, actor: Actor | null, bandId: string, input: unknown): Promise<ChartDto> {
+export async function createChart(db: Kysely<Database>, actor: Actor | null, bandId: string, input: unknown): Promise<WireChart> {
   await requireMember(db, actor, bandId, "editCharts");
   const me = signedIn(actor);
   const data = parseInput(ChartCreateSchema, input);
@@ -62,14 +62,14 @@ export async function createChart(db: Kysely<Database>, actor: Actor | null, ban
     await trx.insertInto("charts").values(row).execute();
     await writeRevision(trx, row, prepared, data.message || "Created the chart");
   });
-  return toChartDto(row, me.name);
+  return toWireChart(row, me.name);
 }
 
 async function conflict(trx: Db, current: ChartRow): Promise<AppError> {
-  const dto = await chartDto(trx, current);
-  const who = dto.updatedBy.name;
+  const theirs = await wireChart(trx, current);
+  const who = theirs.updatedBy.name;
   const what = current.deleted_at ? `${who} deleted this chart` : `${who} published revision ${current.revision}`;
-  return new AppError("conflict", `${what} while you were editing. Your text is kept: compare and publish again.`, { current: dto });
+  return new AppError("conflict", `${what} while you were editing. Your text is kept: compare and publish again.`, { current: theirs });
 }
 
 export async function updateChart(
@@ -78,7 +78,7 @@ export async function updateChart(
   bandId: string,
   chartId: string,
   input: unknown,
-): Promise<ChartDto> {
+): Promise<WireChart> {
   await requireMember(db, actor, bandId, "editCharts");
   const me = signedIn(actor);
   const data = parseInput(ChartUpdateSchema, input);
@@ -98,7 +98,7 @@ export async function updateChart(
     await writeRevision(trx, next, prepared, data.message);
     return next;
   });
-  return toChartDto(row, me.name);
+  return toWireChart(row, me.name);
 }
 
 export async function deleteChart(

@@ -12,9 +12,10 @@ import { parseChartText } from "@/lib/chart/text-parse";
 import { serializeChart } from "@/lib/chart/text-serialize";
 import { importScoreFile, MusicXmlError, MAX_MUSICXML_BYTES, type ImportReport } from "@/lib/musicxml";
 import { requireMember, type Actor } from "./access";
-import { createChart, type ChartDto } from "./charts";
+import { createChart } from "./charts";
 import { AppError, type ErrorCode } from "./errors";
 import { parseInput } from "./input";
+import type { WireChart } from "@/lib/wire";
 
 export interface Upload {
   name: string;
@@ -122,7 +123,7 @@ export const ImportConfirmSchema = z
   .strict();
 
 /** Saves a previewed import as a new chart. */
-export async function confirmImport(db: Kysely<Database>, actor: Actor | null, bandId: string, input: unknown): Promise<ChartDto> {
+export async function confirmImport(db: Kysely<Database>, actor: Actor | null, bandId: string, input: unknown): Promise<WireChart> {
   await requireMember(db, actor, bandId, "editCharts");
   const data = parseInput(ImportConfirmSchema, input);
   const { fileName, ...chart } = data;

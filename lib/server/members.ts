@@ -3,6 +3,8 @@ import "server-only";
 // Invites live in invites.ts and are re-exported here.
 import type { Kysely, Transaction } from "kysely";
 import type { Database } from "@/db/schema";
+import { rosterRows, type RosterRow } from "@/db/sync-queries";
+import type { WireMember } from "@/lib/wire";
 import type { Role } from "@/lib/band/roles";
 import { MemberUpdateSchema, MyInstrumentSchema } from "@/lib/validation/band";
 import { RoleSchema } from "@/lib/band/roles";
@@ -15,17 +17,12 @@ import { endAllSessions } from "./session-version";
 
 export { acceptInvite, INVITE_DAYS, inviteMember, listInvites, previewInvite, type InviteDto, type InvitePreview } from "./invites";
 
-export interface MemberDto {
-  userId: string;
-  name: string;
-  email: string;
-  role: Role;
-  instrument: string;
-  expiresAt: string | null;
-  joinedAt: string;
+/** A roster row in the wire shape the members page and the sync feed share. */
+export function toWireMember(r: RosterRow): WireMember {
+  return { userId: r.user_id, name: r.name, email: r.email, role: r.role, instrument: r.instrument, expiresAt: r.expires_at };
 }
 
-export async function listMembers(db: Kysely<Database>, actor: Actor | null, bandId: string): Promise<MemberDto[]> {
+export async function listMembers(db: Kysely<Database>, actor: Actor | null, bandId: string): Promise<WireMember[]> {
   await requireMember(db, actor, bandId, "readBook");
   return listMembersUnchecked(db, bandId);
 }
@@ -56,7 +53,7 @@ export async function updateMember(
   bandId: string,
   userId: string,
   input: unknown,
-): Promise<MemberDto> {
+): Promise<WireMember> {
   await requireMember(db, actor, bandId, "manageMembers");
   const data = parseInput(MemberUpdateSchema, input);
   await db.transaction().execute(async (trx) => {
@@ -90,7 +87,7 @@ export async function updateMember(
   return updated;
 }
 
-export async function changeRole(db: Kysely<Database>, actor: Actor | null, bandId: string, userId: string, role: Role): Promise<MemberDto> {
+export async function changeRole(db: Kysely<Database>, actor: Actor | null, bandId: string, userId: string, role: Role): Promise<WireMember> {
   return updateMember(db, actor, bandId, userId, { role: parseInput(RoleSchema, role) });
 }
 
@@ -131,21 +128,6 @@ export async function setMyInstrument(db: Kysely<Database>, actor: Actor | null,
   return { instrument: data.instrument, bandId: null };
 }
 
-async function listMembersUnchecked(db: Kysely<Database>, bandId: string): Promise<MemberDto[]> {
-  const rows = await db
-    .selectFrom("memberships as m")
-    .innerJoin("users as u", "u.id", "m.user_id")
-    .select(["m.user_id", "u.name", "u.email", "m.role", "m.instrument", "m.expires_at", "m.created_at"])
-    .where("m.band_id", "=", bandId)
-    .orderBy("u.name")
-    .execute();
-  return rows.map((r) => ({
-    userId: r.user_id,
-    name: r.name,
-    email: r.email,
-    role: r.role,
-    instrument: r.instrument,
-    expiresAt: r.expires_at,
-    joinedAt: r.created_at,
-  }));
+async function listMembersUnchecked(db: Kysely<Database>, bandId: string): Promise<WireMember[]> {
+  return (await rosterRows(db, bandId)).map(toWireMember);
 }

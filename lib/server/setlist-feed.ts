@@ -3,11 +3,12 @@ import "server-only";
 // (filtered by what the caller may see) and push handlers for the device's outbox.
 import type { Kysely } from "kysely";
 import type { Database, Membership } from "@/db/schema";
-import type { Mutation, MutationResult, WireAnnotation, WireSetlist } from "@/lib/offline/protocol";
+import type { Mutation, MutationResult } from "@/lib/offline/protocol";
+import type { WireMark, WireSetlist } from "@/lib/wire";
 import { MarkDataSchema, SetlistInputSchema } from "@/lib/setlist";
 import { z } from "zod";
 import { assertMay } from "./access";
-import { deleteMarkAs, saveMarkAs, toMark } from "./annotations";
+import { deleteMarkAs, saveMarkAs, toMark } from "./marks";
 import { AppError } from "./errors";
 import { deleteSetlistAs, loadSetlists, saveSetlistAs } from "./setlists";
 import { sharedSetlistIds } from "./shares";
@@ -37,11 +38,11 @@ export async function loadSetlistFeedRows(
 }
 
 /** The caller's own marks for the feed; anyone else's are never returned (not even as deletes). */
-export async function loadAnnotationFeedRows(
+export async function loadMarkFeedRows(
   db: Kysely<Database>,
   membership: Membership,
   ids: readonly string[],
-): Promise<FeedRow<WireAnnotation>[]> {
+): Promise<FeedRow<WireMark>[]> {
   const unique = [...new Set(ids)];
   if (unique.length === 0) return [];
   const rows = await db
@@ -52,7 +53,7 @@ export async function loadAnnotationFeedRows(
     .where("band_id", "=", membership.band_id)
     .execute();
   const byId = new Map(rows.map((r) => [r.id, r]));
-  return unique.flatMap((id): FeedRow<WireAnnotation>[] => {
+  return unique.flatMap((id): FeedRow<WireMark>[] => {
     const r = byId.get(id);
     if (!r) return [];
     const mark = r.deleted_at ? null : toMark(r);
@@ -63,7 +64,7 @@ export async function loadAnnotationFeedRows(
 function outcome(mutationId: string, err: unknown): MutationResult {
   if (err instanceof AppError) {
     if (err.code === "conflict" && err.details && "current" in err.details) {
-      return { mutationId, status: "conflict", current: (err.details.current ?? null) as WireSetlist | WireAnnotation | null };
+      return { mutationId, status: "conflict", current: (err.details.current ?? null) as WireSetlist | WireMark | null };
     }
     return { mutationId, status: "rejected", reason: err.message, ...(err.details?.fields ? { fields: err.details.fields } : {}) };
   }
@@ -92,16 +93,16 @@ export async function pushSetlistMutation(db: Kysely<Database>, membership: Memb
   }
 }
 
-const AnnotationPushSchema = z.object({ chartId: z.string().min(1).max(64), data: MarkDataSchema }).strict();
+const MarkPushSchema = z.object({ chartId: z.string().min(1).max(64), data: MarkDataSchema }).strict();
 
 /** Applies one mark mutation from a device: only the owner's own marks. */
-export async function pushAnnotationMutation(db: Kysely<Database>, membership: Membership, m: Mutation, now = new Date()): Promise<MutationResult> {
+export async function pushMarkMutation(db: Kysely<Database>, membership: Membership, m: Mutation, now = new Date()): Promise<MutationResult> {
   try {
     if (m.op === "delete") {
       await deleteMarkAs(db, membership, { id: m.id, now });
       return { mutationId: m.mutationId, status: "applied", revision: m.baseRevision ?? 0, data: null };
     }
-    const data = parsed(AnnotationPushSchema, m.data);
+    const data = parsed(MarkPushSchema, m.data);
     const base = m.op === "restore" || !m.baseRevision ? null : m.baseRevision;
     const saved = await saveMarkAs(db, membership, { id: m.id, chartId: data.chartId, data: data.data, baseRevision: base, now });
     return { mutationId: m.mutationId, status: "applied", revision: saved.revision, data: saved };

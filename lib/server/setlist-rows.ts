@@ -3,7 +3,8 @@ import "server-only";
 import type { Kysely, Transaction } from "kysely";
 import type { Database, SetlistEntryRow, SetlistRow } from "@/db/schema";
 import { IntroChoiceSchema } from "@/lib/chart/model";
-import { EndingChoiceSchema, SetMinutesSchema, type Setlist, type SetlistEntry } from "@/lib/setlist";
+import { EndingChoiceSchema, SetMinutesSchema } from "@/lib/setlist";
+import type { WireSetlist, WireSetlistEntry } from "@/lib/wire";
 
 type Db = Kysely<Database> | Transaction<Database>;
 
@@ -17,7 +18,7 @@ export function parseJson<T>(text: string | null, schema: { safeParse(v: unknown
   }
 }
 
-function toEntry(r: SetlistEntryRow): SetlistEntry & { setlistId: string } {
+function toEntry(r: SetlistEntryRow): WireSetlistEntry {
   return {
     id: r.id,
     setlistId: r.setlist_id,
@@ -35,7 +36,7 @@ function toEntry(r: SetlistEntryRow): SetlistEntry & { setlistId: string } {
   };
 }
 
-export function toSetlist(row: SetlistRow, entries: SetlistEntryRow[]): Setlist {
+export function toSetlist(row: SetlistRow, entries: SetlistEntryRow[]): WireSetlist {
   return {
     id: row.id,
     bandId: row.band_id,
@@ -54,8 +55,8 @@ export function toSetlist(row: SetlistRow, entries: SetlistEntryRow[]): Setlist 
 }
 
 /** Set lists with their entries, tombstones included (the caller decides what a deleted row means). */
-export async function loadSetlists(db: Db, bandId: string, ids: readonly string[]): Promise<Map<string, { row: SetlistRow; setlist: Setlist }>> {
-  const out = new Map<string, { row: SetlistRow; setlist: Setlist }>();
+export async function loadSetlists(db: Db, bandId: string, ids: readonly string[]): Promise<Map<string, { row: SetlistRow; setlist: WireSetlist }>> {
+  const out = new Map<string, { row: SetlistRow; setlist: WireSetlist }>();
   if (ids.length === 0) return out;
   const rows = await db.selectFrom("setlists").selectAll().where("band_id", "=", bandId).where("id", "in", [...ids]).execute();
   if (rows.length === 0) return out;

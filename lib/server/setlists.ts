@@ -9,9 +9,9 @@ import {
   SetlistCreateSchema,
   SetlistDuplicateSchema,
   SetlistUpdateSchema,
-  type Setlist,
   type SetlistEntry,
 } from "@/lib/setlist";
+import type { WireSetlist } from "@/lib/wire";
 import { assertMay, requireMember, type Actor } from "./access";
 import { recordChange } from "./changes";
 import { AppError, notFound, type FieldIssue } from "./errors";
@@ -36,7 +36,7 @@ export interface SetlistSummary {
   updatedAt: string;
 }
 
-async function loadOne(db: Db, bandId: string, id: string): Promise<{ row: SetlistRow; setlist: Setlist } | null> {
+async function loadOne(db: Db, bandId: string, id: string): Promise<{ row: SetlistRow; setlist: WireSetlist } | null> {
   return (await loadSetlists(db, bandId, [id])).get(id) ?? null;
 }
 
@@ -77,7 +77,7 @@ export async function listSetlists(db: Kysely<Database>, actor: Actor | null, ba
   });
 }
 
-export async function getSetlist(db: Kysely<Database>, actor: Actor | null, bandId: string, setlistId: string, now = new Date()): Promise<Setlist> {
+export async function getSetlist(db: Kysely<Database>, actor: Actor | null, bandId: string, setlistId: string, now = new Date()): Promise<WireSetlist> {
   const m = await requireMember(db, actor, bandId, "readSetlists");
   await assertCanSee(db, m, setlistId, now);
   const found = await loadOne(db, bandId, setlistId);
@@ -176,7 +176,7 @@ export interface SaveSetlistOptions {
  * Creates or replaces a set list as a member already resolved by the one access check (requireMember).
  * Shared by the routes and the sync push; checks the member may edit set lists.
  */
-export async function saveSetlistAs(db: Kysely<Database>, member: Membership, { id, data, baseRevision, now = new Date() }: SaveSetlistOptions): Promise<Setlist> {
+export async function saveSetlistAs(db: Kysely<Database>, member: Membership, { id, data, baseRevision, now = new Date() }: SaveSetlistOptions): Promise<WireSetlist> {
   assertMay(member, "editSetlists");
   const bandId = member.band_id;
   const actorId = member.user_id;
@@ -219,7 +219,7 @@ export async function saveSetlistAs(db: Kysely<Database>, member: Membership, { 
   });
 }
 
-export async function createSetlist(db: Kysely<Database>, actor: Actor | null, bandId: string, input: unknown, now = new Date()): Promise<Setlist> {
+export async function createSetlist(db: Kysely<Database>, actor: Actor | null, bandId: string, input: unknown, now = new Date()): Promise<WireSetlist> {
   const member = await requireMember(db, actor, bandId, "editSetlists");
   const data = parseInput(SetlistCreateSchema, input);
   return saveSetlistAs(db, member, { id: data.id ?? newId(), data, baseRevision: null, now });
@@ -232,7 +232,7 @@ export async function updateSetlist(
   setlistId: string,
   input: unknown,
   now = new Date(),
-): Promise<Setlist> {
+): Promise<WireSetlist> {
   const member = await requireMember(db, actor, bandId, "editSetlists");
   const data = parseInput(SetlistUpdateSchema, input);
   return saveSetlistAs(db, member, { id: setlistId, data, baseRevision: data.baseRevision, now });
@@ -271,7 +271,7 @@ export async function duplicateSetlist(
   setlistId: string,
   input: unknown,
   now = new Date(),
-): Promise<Setlist> {
+): Promise<WireSetlist> {
   const member = await requireMember(db, actor, bandId, "editSetlists");
   const opts = parseInput(SetlistDuplicateSchema, input ?? {});
   const found = await loadOne(db, bandId, setlistId);

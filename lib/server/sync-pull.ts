@@ -9,8 +9,9 @@ import { bandCursorRow, feedPageRows, feedRemainingCount, rosterRows } from "@/d
 import type { PullQuery } from "@/lib/offline/protocol";
 import { requireMember, type Actor } from "./access";
 import { AppError } from "./errors";
+import { toWireMember } from "./members";
 import { sharedSetlistIds } from "./shares";
-import { loadAnnotationFeedRows, loadSetlistFeedRows, type FeedRow } from "./setlist-feed";
+import { loadMarkFeedRows, loadSetlistFeedRows, type FeedRow } from "./setlist-feed";
 import { loadAttachments, loadCharts } from "./sync-rows";
 import { PullBody, cachedPull, handleTag, keepPull } from "./pull-cache";
 import { can } from "@/lib/band/roles";
@@ -47,9 +48,7 @@ function scopeOf(m: Membership, visible: Visible | null): string {
 
 async function rosterJson(db: Kysely<Database>, bandId: string): Promise<string> {
   const rows = await rosterRows(db, bandId);
-  return JSON.stringify(
-    rows.map((r) => ({ userId: r.user_id, name: r.name, email: r.email, role: r.role, instrument: r.instrument, expiresAt: r.expires_at })),
-  );
+  return JSON.stringify(rows.map(toWireMember));
 }
 
 /** Deletes for everything in the band a sub can no longer see (their share ended or changed). */
@@ -152,7 +151,7 @@ async function buildPage(db: Kysely<Database>, m: Membership, bandId: string, ba
   const attachments = await loadAttachments(db, bandId, ids.attachment!);
   // Set lists and marks come from their own module, which knows what a sub may see of them.
   const setlists = byId(await loadSetlistFeedRows(db, m, ids.setlist!, now));
-  const marks = byId(await loadAnnotationFeedRows(db, m, ids.annotation!));
+  const marks = byId(await loadMarkFeedRows(db, m, ids.annotation!));
 
   const retracted = rescoped && visible ? await subRetractions(db, bandId, visible) : [];
   const changes = retracted.map((r) => r.json);

@@ -4,11 +4,12 @@ import "server-only";
 // a re-send gets the first answer back.
 import type { Kysely } from "kysely";
 import type { Database, Membership } from "@/db/schema";
-import type { Mutation, MutationResult, PushResponse, WireChart } from "@/lib/offline/protocol";
+import type { Mutation, MutationResult, PushResponse } from "@/lib/offline/protocol";
+import type { WireChart } from "@/lib/wire";
 import { requireMember, type Actor, signedIn } from "./access";
 import { createChart, deleteChart, restoreRevision, updateChart } from "./charts";
 import { AppError } from "./errors";
-import { pushAnnotationMutation, pushSetlistMutation } from "./setlist-feed";
+import { pushMarkMutation, pushSetlistMutation } from "./setlist-feed";
 import { loadCharts } from "./sync-rows";
 import { IdSchema } from "@/lib/validation/common";
 
@@ -88,7 +89,7 @@ export const MUTATION_HANDLERS: Readonly<Record<string, MutationHandler>> = Obje
   Object.assign(Object.create(null) as Record<string, MutationHandler>, {
     chart: pushChart,
     setlist: ({ db, membership, mutation }: PushContext) => pushSetlistMutation(db, membership, mutation),
-    annotation: ({ db, membership, mutation }: PushContext) => pushAnnotationMutation(db, membership, mutation),
+    annotation: ({ db, membership, mutation }: PushContext) => pushMarkMutation(db, membership, mutation),
   }),
 );
 

@@ -1,5 +1,5 @@
 import "server-only";
-// Rows of the sync feed as JSON text in the wire shapes of lib/offline/protocol.ts.
+// Rows of the sync feed as JSON text in the wire shapes of lib/wire.ts.
 // Stored JSON columns are spliced in unparsed; only short scalar fields go through JSON.stringify.
 import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
@@ -84,9 +84,10 @@ export async function loadCharts(db: Kysely<Database>, bandId: string, ids: stri
     out.set(c.id, {
       json:
         `{"id":${s(c.id)},"bandId":${s(c.band_id)},"title":${s(c.title)},"composer":${s(c.composer)},` +
-        `"concertKey":${s(c.concert_key)},"meter":${s(c.meter)},"tempo":${c.tempo === null ? "null" : Number(c.tempo)},` +
-        `"feel":${s(c.feel)},"revision":${Number(c.revision)},"updatedAt":${s(c.updated_at)},"updatedBy":${s(c.updated_by)},` +
-        `"updatedByName":${s(c.updated_by_name ?? "")},"sourceText":${s(c.source_text)},` +
+        `"key":${s(c.concert_key)},"meter":${s(c.meter)},"tempo":${c.tempo === null ? "null" : Number(c.tempo)},` +
+        `"feel":${s(c.feel)},"revision":${Number(c.revision)},"updatedAt":${s(c.updated_at)},` +
+        `"updatedBy":{"id":${s(c.updated_by)},"name":${s(c.updated_by_name ?? "")}},"deletedAt":${c.deleted_at === null ? "null" : s(c.deleted_at)},` +
+        `"sourceText":${s(c.source_text)},` +
         `"history":[${(history.get(c.id) ?? []).join(",")}],"body":${splice(c.body_json)}}`,
     });
   }

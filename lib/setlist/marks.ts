@@ -40,15 +40,6 @@ export const MarkDataSchema = z
   .refine((m) => m.kind === "highlight" || m.text.length > 0, { message: "A text mark needs some text", path: ["text"] });
 export type MarkData = z.infer<typeof MarkDataSchema>;
 
-/** A mark as the server sends it and as devices store it (the sync feed's annotation). */
-export interface Mark {
-  id: string;
-  chartId: string;
-  revision: number;
-  updatedAt: string;
-  data: MarkData;
-}
-
 /** Reads a stored annotation's data; null when it is not a mark this version understands. */
 export function readMark(data: unknown): MarkData | null {
   const r = MarkDataSchema.safeParse(data);

@@ -129,21 +129,6 @@ export const SetlistDuplicateSchema = z
   .strict();
 export type SetlistDuplicate = z.infer<typeof SetlistDuplicateSchema>;
 
-/** A set list as the server sends it and as devices store it. */
-export interface Setlist {
-  id: string;
-  bandId: string;
-  name: string;
-  startsAt: string | null;
-  venue: string;
-  notes: string;
-  setMinutes: (number | null)[];
-  revision: number;
-  updatedBy: string;
-  updatedAt: string;
-  entries: (SetlistEntry & { setlistId: string })[];
-}
-
 /** Entries grouped by set, each set in play order. Set numbers with no tunes are left out. */
 export function groupBySet(entries: readonly SetlistEntry[]): { setNumber: number; entries: SetlistEntry[] }[] {
   const sets = new Map<number, SetlistEntry[]>();

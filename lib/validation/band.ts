@@ -35,10 +35,6 @@ export const MemberUpdateSchema = z
   });
 export type MemberUpdate = z.infer<typeof MemberUpdateSchema>;
 
-export const InviteAcceptSchema = z
-  .object({ bandId: IdSchema.optional() })
-  .strict();
-
 export const MyInstrumentSchema = z
   .object({
     instrument: InstrumentIdSchema,

@@ -1,6 +1,5 @@
 // The body of a chart create/update, shared by the chart form and the route handlers.
 import { z } from "zod";
-import type { Chart } from "@/lib/chart/model";
 
 export const KEY_PATTERN = /^[A-G](#|b)?m?$/;
 export const METER_PATTERN = /^(\d{1,2})\/(2|4|8)$/;
@@ -24,21 +23,3 @@ export type ChartCreate = z.infer<typeof ChartCreateSchema>;
 
 export const ChartUpdateSchema = ChartInputSchema.extend({ baseRevision: z.number().int().min(1) }).strict();
 export type ChartUpdate = z.infer<typeof ChartUpdateSchema>;
-
-/** A chart as the REST routes return it (and the device reads it). */
-export interface ChartDto {
-  id: string;
-  bandId: string;
-  title: string;
-  composer: string;
-  key: string;
-  meter: string;
-  tempo: number | null;
-  feel: string;
-  sourceText: string;
-  body: Chart;
-  revision: number;
-  updatedBy: { id: string; name: string };
-  updatedAt: string;
-  deletedAt: string | null;
-}

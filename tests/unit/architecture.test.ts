@@ -104,6 +104,24 @@ describe("one way to do each thing", () => {
     expect(offenders).toEqual([]);
   });
 
+  it("only lib/offline writes the device's Dexie tables (pages read them and call lib/offline to write)", () => {
+    const write = /(getLocalBook\(\)|\bbook)\s*\.\s*\w+\s*\.\s*(put|bulkPut|add|bulkAdd|update|bulkUpdate|delete|bulkDelete|clear|modify)\(|\.transaction\(\s*["']rw/;
+    const offenders = ["app", "components", "worker", "lib"].flatMap(sourceFiles)
+      .filter((f) => !rel(f).startsWith(path.join("lib", "offline")))
+      .filter((f) => write.test(fs.readFileSync(f, "utf8")) || allImports(f).some((s) => s === "@/lib/offline/outbox" && /\benqueue\b/.test(fs.readFileSync(f, "utf8"))))
+      .map(rel);
+    expect(offenders).toEqual([]);
+  });
+
+  it("each entity has one wire shape, in lib/wire.ts: no …Dto or Wire… type for them elsewhere", () => {
+    const entity = /\b(interface|type)\s+(Wire(Chart|Setlist|SetlistEntry|Mark|Annotation|Part|Attachment|Member|Membership)|(Chart|Setlist|Mark|Annotation|Part|Attachment|Member)Dto)\b/;
+    const offenders = ["app", "components", "lib", "worker"].flatMap(sourceFiles)
+      .filter((f) => rel(f) !== path.join("lib", "wire.ts"))
+      .filter((f) => entity.test(fs.readFileSync(f, "utf8")))
+      .map(rel);
+    expect(offenders).toEqual([]);
+  });
+
   it("no exported use case skips its access check (no exported …Unchecked)", () => {
     const offenders = ["app", "lib"].flatMap(sourceFiles)
       .filter((f) => /export\s+(async\s+)?(function|const)\s+\w*Unchecked\b/.test(fs.readFileSync(f, "utf8")))

@@ -6,6 +6,7 @@ import { Notice } from "@/components/ui/Notice";
 import { ready } from "@/db";
 import { getActor } from "@/lib/server/session";
 import { previewShare } from "@/lib/server/shares";
+import { utcText } from "@/lib/mail/html";
 import { SHARING_CAUTION } from "@/lib/setlist";
 import { TokenParams } from "@/lib/validation/params";
 
@@ -24,7 +25,7 @@ export default async function SharePage({ params }: { params: Promise<{ token: s
   const share = parsed.success ? await previewShare(db, parsed.data.token) : null;
   const actor = await getActor();
   const here = parsed.success ? `/share/${parsed.data.token}` : "/";
-  const when = share ? `${new Date(share.expiresAt).toISOString().slice(0, 16).replace("T", " ")} UTC` : "";
+  const when = share ? utcText(share.expiresAt) : "";
 
   return (
     <div className="flex min-h-screen flex-col bg-paper">

@@ -5,21 +5,13 @@ import { Button } from "@/components/ui/Button";
 import { SelectField } from "@/components/ui/Field";
 import { formatDateTime, INSTRUMENT_OPTIONS, ROLE_OPTIONS, roleLabel } from "@/components/ui/labels";
 import { accessEnds, type Role } from "@/lib/band/roles";
+import type { WireMember } from "@/lib/wire";
 import { IDLE, type MemberFormState } from "./form-state";
 import { LocalDateTime } from "./LocalDateTime";
 
 type Action = (prev: MemberFormState, form: FormData) => Promise<MemberFormState>;
 
-export interface RosterMember {
-  userId: string;
-  name: string;
-  email: string;
-  role: Role;
-  instrument: string;
-  expiresAt: string | null;
-}
-
-export function MemberRow({ member, isMe, update, remove }: { member: RosterMember; isMe: boolean; update: Action; remove: Action }) {
+export function MemberRow({ member, isMe, update, remove }: { member: WireMember; isMe: boolean; update: Action; remove: Action }) {
   const [saved, saveAction, saving] = useActionState(update, IDLE);
   const [removed, removeAction, removing] = useActionState(remove, IDLE);
   const [role, setRole] = useState<Role>(member.role);

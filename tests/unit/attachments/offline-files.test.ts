@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
 import { IDBKeyRange, indexedDB } from "fake-indexeddb";
 import { describe, expect, it } from "vitest";
-import { chartParts, fetchMissingAttachmentFiles, readAttachmentFile } from "@/lib/offline/attachments";
+import { chartParts, fetchMissingPartFiles, readPartFile } from "@/lib/offline/parts";
 import { LocalBook } from "@/lib/offline/db";
 import { makePdf } from "./make-pdf";
 
@@ -23,10 +23,10 @@ describe("parts on the device", () => {
       calls.push(url);
       return new Response(pdf as BlobPart, { status: 200 });
     };
-    const r = await fetchMissingAttachmentFiles(b, "band1", { fetcher });
+    const r = await fetchMissingPartFiles(b, "band1", { fetcher });
     expect(r).toEqual({ fetched: ["a1"], failed: ["a2"] }); // a2's bytes do not match its hash
     expect(calls[0]).toBe("/api/bands/band1/charts/chart1/attachments/a1");
-    const blob = await readAttachmentFile(b, "a1");
+    const blob = await readPartFile(b, "a1");
     expect(new Uint8Array(await blob!.arrayBuffer())).toEqual(pdf);
     expect(blob!.type).toBe("application/pdf");
     expect((await chartParts(b, "chart1")).map((p) => [p.id, p.offline])).toEqual([["a1", true], ["a2", false]]);
@@ -41,8 +41,8 @@ describe("parts on the device", () => {
       n++;
       throw new TypeError("Failed to fetch");
     };
-    expect(await fetchMissingAttachmentFiles(b, "band1", { fetcher })).toEqual({ fetched: [], failed: ["a3"] });
+    expect(await fetchMissingPartFiles(b, "band1", { fetcher })).toEqual({ fetched: [], failed: ["a3"] });
     expect(n).toBe(1);
-    expect(await readAttachmentFile(b, "a3")).toBeNull();
+    expect(await readPartFile(b, "a3")).toBeNull();
   });
 });

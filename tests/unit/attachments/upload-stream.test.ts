@@ -8,7 +8,7 @@ import vm from "node:vm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
-import { MAX_ATTACHMENT_BYTES, PdfPageCounter, readAttachment, uploadAttachmentRequest } from "@/lib/server/attachments";
+import { MAX_PART_BYTES, PdfPageCounter, openPart, uploadPartRequest } from "@/lib/server/parts";
 import { createChart } from "@/lib/server/charts";
 import { appError, chartInput, cleanupDbs, freshDb, makeBand, type BandCast } from "../server/helpers";
 import { makePdf } from "./make-pdf";
@@ -95,23 +95,23 @@ describe("a streamed upload", () => {
       gc();
       peak = Math.max(peak, memory());
     }, 100);
-    const dto = await uploadAttachmentRequest(db, cast.leader, cast.bandId, chartId, request).finally(() => clearInterval(timer));
+    const dto = await uploadPartRequest(db, cast.leader, cast.bandId, chartId, request).finally(() => clearInterval(timer));
     gc();
     peak = Math.max(peak, memory());
     console.log(`19 MB upload through the route: memory growth ${((peak - start) / MB).toFixed(1)} MB`);
     expect(dto.size).toBe(19 * MB + "%PDF-1.4\n".length);
     expect(peak - start).toBeLessThan(8 * MB);
-    const body = await readAttachment(db, cast.leader, cast.bandId, chartId, dto.id);
+    const body = await openPart(db, cast.leader, cast.bandId, chartId, dto.id);
     expect(body.stream ? body.size : -1).toBe(dto.size);
     await body.stream?.cancel();
   }, 60_000);
 
   it("past the limit it answers 413 while streaming, stops reading, and stores nothing", async () => {
     const before = await storedState(db, dataDir);
-    const { request, pulled } = streamedUpload(MAX_ATTACHMENT_BYTES + 30 * MB);
-    const err = await appError(() => uploadAttachmentRequest(db, cast.leader, cast.bandId, chartId, request));
+    const { request, pulled } = streamedUpload(MAX_PART_BYTES + 30 * MB);
+    const err = await appError(() => uploadPartRequest(db, cast.leader, cast.bandId, chartId, request));
     expect(err.status).toBe(413);
-    expect(pulled()).toBeLessThan(MAX_ATTACHMENT_BYTES + 2 * MB);
+    expect(pulled()).toBeLessThan(MAX_PART_BYTES + 2 * MB);
     expect(await storedState(db, dataDir)).toEqual(before);
     const leftovers = fs.readdirSync(path.join(dataDir, "attachments")).filter((f) => f.endsWith(".part"));
     expect(leftovers).toEqual([]);

@@ -3,10 +3,10 @@ import { applyQuery, DEFAULT_QUERY, facets, readQuery, writeQuery, type LibraryR
 
 // Invented rows for the library's own logic (no music facts are checked here).
 const rows: LibraryRow[] = [
-  { id: "1", title: "Brass Lantern", composer: "Ada Quill", concertKey: "Eb", feel: "medium swing", tempo: 160, updatedAt: "2026-11-02T10:00:00Z" },
-  { id: "2", title: "after hours at the pier", composer: "Ben Rook", concertKey: "F", feel: "ballad", tempo: 60, updatedAt: "2026-11-05T10:00:00Z" },
-  { id: "3", title: "Café Tiller", composer: "Ada Quill", concertKey: "F", feel: "Bossa", tempo: null, updatedAt: "2026-10-01T10:00:00Z" },
-  { id: "4", title: "Dockside 2", composer: "Cy Lark", concertKey: "Cm", feel: "bossa", tempo: 120, updatedAt: "2026-11-04T10:00:00Z" },
+  { id: "1", title: "Brass Lantern", composer: "Ada Quill", key: "Eb", feel: "medium swing", tempo: 160, updatedAt: "2026-11-02T10:00:00Z" },
+  { id: "2", title: "after hours at the pier", composer: "Ben Rook", key: "F", feel: "ballad", tempo: 60, updatedAt: "2026-11-05T10:00:00Z" },
+  { id: "3", title: "Café Tiller", composer: "Ada Quill", key: "F", feel: "Bossa", tempo: null, updatedAt: "2026-10-01T10:00:00Z" },
+  { id: "4", title: "Dockside 2", composer: "Cy Lark", key: "Cm", feel: "bossa", tempo: 120, updatedAt: "2026-11-04T10:00:00Z" },
 ];
 
 const ids = (list: LibraryRow[]) => list.map((r) => r.id);

@@ -10,14 +10,15 @@ import { LocalBook, setLocalBook } from "@/lib/offline/db";
 import { saveChart } from "@/lib/offline/mutations";
 import { SyncEngine } from "@/lib/offline/sync";
 import type { Actor } from "@/lib/server/access";
-import { createChart, updateChart, type ChartDto } from "@/lib/server/charts";
+import { createChart, updateChart } from "@/lib/server/charts";
 import { chartInput, cleanupDbs, freshDb, makeBand, type BandCast } from "../server/helpers";
 import { makeSetlist, shareWith } from "../sync/helpers";
 import { fakeNetwork, type FakeNetwork } from "./fake-server";
+import type { WireChart } from "@/lib/wire";
 
 let db: Kysely<Database>;
 let cast: BandCast;
-let tune: ChartDto;
+let tune: WireChart;
 
 beforeAll(async () => {
   db = await freshDb();

@@ -25,7 +25,7 @@ describe("the outbox", () => {
     await enqueue(b, edit("c1", "two"));
     await enqueue(b, edit("c2", "other"));
     expect(await b.outbox.count()).toBe(3);
-    const due = await dueItems(b, "b1", new Date(), false);
+    const due = await dueItems(b, "b1", { now: new Date() });
     expect(due.map((i) => [i.entityId, (i.data as { feel: string }).feel])).toEqual([["c1", "one"], ["c2", "other"]]);
   });
 
@@ -41,9 +41,9 @@ describe("the outbox", () => {
     const item = await enqueue(b, edit("c4", "x"));
     const now = new Date("2026-12-01T22:00:00Z");
     await backOff(b, [item], now);
-    expect(await dueItems(b, "b1", now, false)).toEqual([]);
-    expect(await dueItems(b, "b1", new Date(now.getTime() + 2_500), false)).toHaveLength(1);
-    expect(await dueItems(b, "b1", now, true)).toHaveLength(1);
+    expect(await dueItems(b, "b1", { now })).toEqual([]);
+    expect(await dueItems(b, "b1", { now: new Date(now.getTime() + 2_500) })).toHaveLength(1);
+    expect(await dueItems(b, "b1", { now, force: true })).toHaveLength(1);
     const [again] = await b.outbox.toArray();
     await backOff(b, [again!], now);
     const [later] = await b.outbox.toArray();

@@ -11,9 +11,9 @@ const NOW = new Date("2026-12-04T18:00:00Z");
 
 function chart(id: string, revision: number): ChartRow {
   return {
-    id, bandId: "b", title: id, composer: "", concertKey: "C", meter: "4/4", tempo: null, feel: "",
+    id, bandId: "b", title: id, composer: "", key: "C", meter: "4/4", tempo: null, feel: "",
     body: { title: id, composer: "", key: "C", meter: { beats: 4, unit: 4 }, tempo: null, feel: "", intro: null, sections: [{ label: "A", bars: [] }] },
-    sourceText: "", revision, updatedAt: "", updatedBy: "", updatedByName: "", unseen: false, seenRevision: revision,
+    sourceText: "", revision, updatedAt: "", updatedBy: { id: "", name: "" }, deletedAt: null, unseen: false, seenRevision: revision,
   };
 }
 

@@ -2,8 +2,9 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Kysely } from "kysely";
 import type { Database } from "@/db/schema";
-import { createChart, deleteChart, getChart, listCharts, listRevisions, restoreRevision, updateChart, type ChartDto } from "@/lib/server/charts";
+import { createChart, deleteChart, getChart, listCharts, listRevisions, restoreRevision, updateChart } from "@/lib/server/charts";
 import { appError, chartInput, cleanupDbs, freshDb, makeBand, type BandCast } from "./helpers";
+import type { WireChart } from "@/lib/wire";
 
 let db: Kysely<Database>;
 let cast: BandCast;
@@ -67,7 +68,7 @@ describe("revision conflicts", () => {
     await updateChart(db, cast.leader, cast.bandId, chart.id, { ...chartInput({ title: "Leader's fix" }), baseRevision: 1 });
     const err = await appError(() => updateChart(db, cast.arranger, cast.bandId, chart.id, { ...chartInput({ title: "Arranger's fix" }), baseRevision: 1 }));
     expect(err.status).toBe(409);
-    const current = err.details?.current as ChartDto;
+    const current = err.details?.current as WireChart;
     expect(current.revision).toBe(2);
     expect(current.title).toBe("Leader's fix");
     expect(current.updatedBy.name).toBe(cast.leader.name);
@@ -92,7 +93,7 @@ describe("revision conflicts", () => {
     await deleteChart(db, cast.leader, cast.bandId, chart.id);
     const err = await appError(() => updateChart(db, cast.arranger, cast.bandId, chart.id, { ...chartInput(), baseRevision: 1 }));
     expect(err.status).toBe(409);
-    expect((err.details?.current as ChartDto).deletedAt).not.toBeNull();
+    expect((err.details?.current as WireChart).deletedAt).not.toBeNull();
   });
 });
 

@@ -9,7 +9,8 @@ import { DEMO_ACCOUNTS, DEMO_BAND, DEMO_BAND_ID, DEMO_GIG_ID, demoId, seedDemo }
 import type { Database } from "@/db/schema";
 import { getSetlist } from "@/lib/server/setlists";
 import { pullChanges } from "@/lib/server/sync";
-import { checkArrangement, groupBySet, type Setlist } from "@/lib/setlist";
+import { checkArrangement, groupBySet } from "@/lib/setlist";
+import type { WireSetlist } from "@/lib/wire";
 import { cleanupDbs, freshDb } from "./helpers";
 
 const NOW = new Date("2026-12-02T09:15:00.000Z");
@@ -31,7 +32,7 @@ afterAll(async () => {
 });
 
 describe("the demo's gig (item 25)", () => {
-  let gig: Setlist;
+  let gig: WireSetlist;
   it("is tonight at the demo venue: two sets of 10–12 tunes in all, with the leader's set lengths and a note", async () => {
     gig = await getSetlist(db, await actorOf("leader"), DEMO_BAND_ID, DEMO_GIG_ID, NOW);
     expect(gig.venue).toBe(DEMO_BAND.venue);

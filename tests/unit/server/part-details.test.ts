@@ -1,7 +1,7 @@
 import { describe, expect, it, vi } from "vitest";
 
 vi.mock("server-only", () => ({}));
-const { readPartDetails } = await import("@/lib/server/attachments");
+const { readPartDetails } = await import("@/lib/server/parts");
 
 describe("item 22: a part's name and instrument, read at the boundary", () => {
   it("takes a name, an instrument id and the part it replaces", () => {

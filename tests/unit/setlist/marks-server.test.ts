@@ -2,9 +2,9 @@
 // bar after a revision; and the sync feed's loaders and push handlers for set lists and marks.
 import { beforeEach, describe, expect, it, vi } from "vitest";
 import { findMembership } from "@/lib/server/access";
-import { createMark, deleteMark, listMyMarks, reanchorChartMarks, updateMark } from "@/lib/server/annotations";
+import { createMark, deleteMark, listMyMarks, reanchorChartMarks, updateMark } from "@/lib/server/marks";
 import { AppError } from "@/lib/server/errors";
-import { loadAnnotationFeedRows, loadSetlistFeedRows, pushAnnotationMutation, pushSetlistMutation } from "@/lib/server/setlist-feed";
+import { loadMarkFeedRows, loadSetlistFeedRows, pushMarkMutation, pushSetlistMutation } from "@/lib/server/setlist-feed";
 import { createSetlist } from "@/lib/server/setlists";
 import { acceptShare, createShare } from "@/lib/server/shares";
 import { anchorFor } from "@/lib/setlist";
@@ -91,8 +91,8 @@ describe("the sync feed's rows and pushes", () => {
 
   it("never hands one player's marks to another", async () => {
     const mark = await createMark(w.db, w.people.player, w.bandId, markInput(w.charts.harbour, 0, 0), NOW);
-    expect(await loadAnnotationFeedRows(w.db, await member("leader"), [mark.id])).toEqual([]);
-    expect((await loadAnnotationFeedRows(w.db, await member("player"), [mark.id]))[0]).toMatchObject({ op: "upsert", id: mark.id });
+    expect(await loadMarkFeedRows(w.db, await member("leader"), [mark.id])).toEqual([]);
+    expect((await loadMarkFeedRows(w.db, await member("player"), [mark.id]))[0]).toMatchObject({ op: "upsert", id: mark.id });
   });
 
   it("applies a leader's set-list push, rejects a player's, and returns a conflict with the server's row", async () => {
@@ -113,9 +113,9 @@ describe("the sync feed's rows and pushes", () => {
 
   it("applies a mark push from its owner", async () => {
     const id = crypto.randomUUID();
-    const r = await pushAnnotationMutation(w.db, await member("player"), { mutationId: "m-100001", entity: "annotation", id, op: "upsert", baseRevision: null, data: markInput(w.charts.harbour, 1, 1) }, NOW);
+    const r = await pushMarkMutation(w.db, await member("player"), { mutationId: "m-100001", entity: "annotation", id, op: "upsert", baseRevision: null, data: markInput(w.charts.harbour, 1, 1) }, NOW);
     expect(r).toMatchObject({ status: "applied", revision: 1 });
-    const del = await pushAnnotationMutation(w.db, await member("leader"), { mutationId: "m-100002", entity: "annotation", id, op: "delete", baseRevision: 1 }, NOW);
+    const del = await pushMarkMutation(w.db, await member("leader"), { mutationId: "m-100002", entity: "annotation", id, op: "delete", baseRevision: 1 }, NOW);
     expect(del.status).toBe("rejected");
   });
 });

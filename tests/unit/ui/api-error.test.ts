@@ -1,6 +1,6 @@
 // The one reader of a failed route answer, as the screens use it.
 import { describe, expect, it } from "vitest";
-import { readApiError } from "@/components/ui/api-error";
+import { readApiError } from "@/lib/api-error";
 
 describe("readApiError", () => {
   it("takes the server's message, code and first field", async () => {

@@ -1,9 +1,9 @@
-import { deleteAttachment, readAttachment, safeFilename } from "@/lib/server/attachments";
+import { deletePart, openPart, safeFilename } from "@/lib/server/parts";
 import { route } from "@/lib/server/handler";
 import { AttachmentParams as Params } from "@/lib/validation/params";
 
 export const GET = route({ params: Params }, async ({ db, actor, params }) => {
-  const part = await readAttachment(db, actor, params.bandId, params.chartId, params.attachmentId);
+  const part = await openPart(db, actor, params.bandId, params.chartId, params.attachmentId);
   // Object storage with signed addresses: the member fetches the bytes from the store directly.
   if (part.url !== undefined) return new Response(null, { status: 302, headers: { location: part.url, "cache-control": "no-store" } });
   // Streamed from the store as they arrive, never held whole here.
@@ -21,6 +21,6 @@ export const GET = route({ params: Params }, async ({ db, actor, params }) => {
 });
 
 export const DELETE = route({ params: Params }, async ({ db, actor, params }) => {
-  await deleteAttachment(db, actor, params.bandId, params.chartId, params.attachmentId);
+  await deletePart(db, actor, params.bandId, params.chartId, params.attachmentId);
   return { ok: true };
 });

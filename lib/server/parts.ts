@@ -1,5 +1,5 @@
 import "server-only";
-import type { WireAttachment } from "@/lib/offline/protocol";
+import type { WirePart } from "@/lib/wire";
 // PDF and image parts of a chart: the type is read from the file's first bytes (never trusted from
 // the name or the browser), the size is capped, and the file is stored once under its sha256 in the
 // part store (lib/server/part-store: the data folder, or object storage). Each upload adds a row and
@@ -19,15 +19,12 @@ import { z } from "zod";
 import { INSTRUMENT_IDS } from "@/lib/music/instruments";
 import { IdSchema } from "@/lib/validation/common";
 
-export const MAX_ATTACHMENT_BYTES = 20 * 1024 * 1024;
-export const ATTACHMENT_TYPES = ["application/pdf", "image/png", "image/jpeg"] as const;
-export type AttachmentType = (typeof ATTACHMENT_TYPES)[number];
-
-/** The wire shape devices store (one definition, shared with the sync client). */
-export type AttachmentDto = WireAttachment;
+export const MAX_PART_BYTES = 20 * 1024 * 1024;
+export const PART_TYPES = ["application/pdf", "image/png", "image/jpeg"] as const;
+export type PartType = (typeof PART_TYPES)[number];
 
 /** The file's type from its magic bytes: %PDF-, the PNG signature, or a JPEG start-of-image marker. */
-export function sniffAttachment(b: Uint8Array): AttachmentType | null {
+export function sniffPart(b: Uint8Array): PartType | null {
   const starts = (sig: number[]) => sig.every((v, i) => b[i] === v);
   if (starts([0x25, 0x50, 0x44, 0x46, 0x2d])) return "application/pdf";
   if (starts([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a])) return "image/png";
@@ -70,7 +67,7 @@ export class PdfPageCounter {
   }
 }
 
-function toDto(r: AttachmentRow): AttachmentDto {
+function toWirePart(r: AttachmentRow): WirePart {
   return {
     id: r.id, chartId: r.chart_id, filename: r.filename, sha256: r.sha256, size: r.size, type: r.type, pages: r.pages, createdAt: r.created_at,
     partName: r.part_name ?? null, instrument: r.instrument ?? null,
@@ -106,13 +103,13 @@ async function requirePart(db: Kysely<Database>, bandId: string, chartId: string
 }
 
 /** Stores a part as its bytes stream past: the type from its first bytes, the pages counted on the way. */
-async function storeAttachment(db: Kysely<Database>, actor: Actor, bandId: string, chartId: string, file: IncomingFile): Promise<AttachmentDto> {
+async function storePart(db: Kysely<Database>, actor: Actor, bandId: string, chartId: string, file: IncomingFile): Promise<WirePart> {
   // The form's fields come before the file, so they are checked before a byte is stored.
   const details = readPartDetails(file.fields ?? {});
   if (details?.replaces) await requirePart(db, bandId, chartId, details.replaces);
   const { head, all } = await peek(file.chunks, 8);
   if (head.byteLength === 0) throw new AppError("bad_request", "That file is empty.", { fields: [{ field: "file", message: "The file is empty" }] });
-  const type = sniffAttachment(head);
+  const type = sniffPart(head);
   if (!type) throw new AppError("unsupported_media_type", "Pedalpoint takes PDF, PNG and JPEG files for parts; this file is none of those.");
   const counter = type === "application/pdf" ? new PdfPageCounter() : null;
   async function* counted(): AsyncGenerator<Uint8Array> {
@@ -123,7 +120,7 @@ async function storeAttachment(db: Kysely<Database>, actor: Actor, bandId: strin
   }
   let stored: StoredPart;
   try {
-    stored = await partStore().put(counted(), { maxBytes: MAX_ATTACHMENT_BYTES, type });
+    stored = await partStore().put(counted(), { maxBytes: MAX_PART_BYTES, type });
   } catch (err) {
     if (err instanceof PartTooLarge) throw tooLarge();
     throw err;
@@ -153,7 +150,7 @@ async function storeAttachment(db: Kysely<Database>, actor: Actor, bandId: strin
       await recordChange(trx, { bandId, entity: "attachment", entityId: details.replaces, op: "delete" });
     }
   });
-  return toDto(row);
+  return toWirePart(row);
 }
 
 async function* once(bytes: Uint8Array): AsyncGenerator<Uint8Array> {
@@ -161,41 +158,41 @@ async function* once(bytes: Uint8Array): AsyncGenerator<Uint8Array> {
 }
 
 /** A part already in memory (imports, tests): the same checks and store as an upload. */
-export async function uploadAttachment(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, file: Upload): Promise<AttachmentDto> {
+export async function uploadPart(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, file: Upload): Promise<WirePart> {
   await requireMember(db, actor, bandId, "editCharts");
   await requireChart(db, bandId, chartId);
-  if (file.bytes.byteLength > MAX_ATTACHMENT_BYTES) throw tooLarge();
-  return storeAttachment(db, signedIn(actor), bandId, chartId, { name: file.name, chunks: once(file.bytes) });
+  if (file.bytes.byteLength > MAX_PART_BYTES) throw tooLarge();
+  return storePart(db, signedIn(actor), bandId, chartId, { name: file.name, chunks: once(file.bytes) });
 }
 
 /** Members who read the book see a chart's parts; a sub sees those of charts shared with them. */
 const requireReader = (db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string) => requireChartReader(db, actor, bandId, chartId, "not_found");
 
-export async function listAttachments(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string): Promise<AttachmentDto[]> {
+export async function listParts(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string): Promise<WirePart[]> {
   await requireReader(db, actor, bandId, chartId);
   const rows = await db.selectFrom("attachments").selectAll().where("band_id", "=", bandId).where("chart_id", "=", chartId).where("deleted_at", "is", null).orderBy("created_at").execute();
-  return rows.map(toDto);
+  return rows.map(toWirePart);
 }
 
 /** How long a signed address to a part in object storage stays good. */
 export const SIGNED_URL_SECONDS = 60;
 
-export type AttachmentBody =
-  | { dto: AttachmentDto; stream: ReadableStream<Uint8Array>; size: number; url?: undefined }
-  | { dto: AttachmentDto; url: string; stream?: undefined };
+export type PartBody =
+  | { dto: WirePart; stream: ReadableStream<Uint8Array>; size: number; url?: undefined }
+  | { dto: WirePart; url: string; stream?: undefined };
 
 /**
  * A part's bytes for a member: streamed from the store, or (object storage with
  * PARTS_SIGNED_URLS=1) a short-lived signed address to fetch them from directly.
  */
-export async function readAttachment(
+export async function openPart(
   db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, attachmentId: string,
-): Promise<AttachmentBody> {
+): Promise<PartBody> {
   await requireReader(db, actor, bandId, chartId);
   const row = await db.selectFrom("attachments").selectAll().where("band_id", "=", bandId).where("chart_id", "=", chartId).where("id", "=", attachmentId).where("deleted_at", "is", null).executeTakeFirst();
   if (!row) throw new AppError("not_found", "That part was not found.");
   const store = partStore();
-  const dto = toDto(row);
+  const dto = toWirePart(row);
   if (process.env.PARTS_SIGNED_URLS === "1") {
     const url = await store.signedUrl(row.path, { filename: safeFilename(dto.filename), type: dto.type, seconds: SIGNED_URL_SECONDS });
     if (url) return { dto, url };
@@ -210,7 +207,7 @@ export function safeFilename(name: string): string {
   return name.replace(/[^\x20-\x7e]/g, "_").replace(/"/g, "'");
 }
 
-export async function deleteAttachment(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, attachmentId: string): Promise<void> {
+export async function deletePart(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, attachmentId: string): Promise<void> {
   await requireMember(db, actor, bandId, "editCharts");
   const res = await db.updateTable("attachments").set({ deleted_at: nowIso() }).where("band_id", "=", bandId).where("chart_id", "=", chartId).where("id", "=", attachmentId).where("deleted_at", "is", null).executeTakeFirst();
   if (Number(res.numUpdatedRows) === 0) throw new AppError("not_found", "That part was not found.");
@@ -218,9 +215,9 @@ export async function deleteAttachment(db: Kysely<Database>, actor: Actor | null
 }
 
 /** The whole upload request: role and chart are checked before the upload is read. */
-export async function uploadAttachmentRequest(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, request: Request): Promise<AttachmentDto> {
+export async function uploadPartRequest(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId: string, request: Request): Promise<WirePart> {
   await requireMember(db, actor, bandId, "editCharts");
   await requireChart(db, bandId, chartId);
   // Streamed from the request into the part store: never the whole file in memory.
-  return receiveFile(request, { maxBytes: MAX_ATTACHMENT_BYTES, what: "a part" }, (file) => storeAttachment(db, signedIn(actor), bandId, chartId, file));
+  return receiveFile(request, { maxBytes: MAX_PART_BYTES, what: "a part" }, (file) => storePart(db, signedIn(actor), bandId, chartId, file));
 }

@@ -2,14 +2,14 @@
 // this fetches the files themselves into `attachmentFiles` while there is signal, checking each
 // against its sha256, so the bandstand can open them with none. Call it after a sync.
 import type { LocalBook } from "./db";
-import type { LocalAttachment } from "./types";
+import type { LocalPart } from "./types";
 
 export interface FetchFilesResult {
   fetched: string[];
   failed: string[];
 }
 
-export function attachmentUrl(a: Pick<LocalAttachment, "bandId" | "chartId" | "id">): string {
+export function attachmentUrl(a: Pick<LocalPart, "bandId" | "chartId" | "id">): string {
   return `/api/bands/${encodeURIComponent(a.bandId)}/charts/${encodeURIComponent(a.chartId)}/attachments/${encodeURIComponent(a.id)}`;
 }
 
@@ -19,7 +19,7 @@ async function sha256Hex(bytes: ArrayBuffer): Promise<string> {
 }
 
 /** Downloads every part of the band (or of one chart) that the device does not hold yet. */
-export async function fetchMissingAttachmentFiles(
+export async function fetchMissingPartFiles(
   book: LocalBook,
   bandId: string,
   opts: { chartId?: string; fetcher?: (url: string, init?: RequestInit) => Promise<Response>; now?: () => Date } = {},
@@ -50,12 +50,12 @@ export async function fetchMissingAttachmentFiles(
 }
 
 /** The stored file of a part, or null when this device has not fetched it yet. */
-export async function readAttachmentFile(book: LocalBook, attachmentId: string): Promise<Blob | null> {
+export async function readPartFile(book: LocalBook, attachmentId: string): Promise<Blob | null> {
   return (await book.attachmentFiles.get(attachmentId))?.blob ?? null;
 }
 
 /** A chart's parts on this device, each with whether its file is here for offline reading. */
-export async function chartParts(book: LocalBook, chartId: string): Promise<(LocalAttachment & { offline: boolean })[]> {
+export async function chartParts(book: LocalBook, chartId: string): Promise<(LocalPart & { offline: boolean })[]> {
   const rows = await book.attachments.where("chartId").equals(chartId).sortBy("createdAt");
   const held = new Set(await book.attachmentFiles.where("id").anyOf(rows.map((r) => r.id)).primaryKeys());
   return rows.map((r) => ({ ...r, offline: held.has(r.id) }));

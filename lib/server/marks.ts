@@ -4,7 +4,8 @@ import "server-only";
 import type { Kysely, Transaction } from "kysely";
 import type { AnnotationRow, Database, Membership } from "@/db/schema";
 import { ChartSchema, type Chart } from "@/lib/chart/model";
-import { anchorFor, MarkInputSchema, MarkUpdateSchema, readMark, reanchorMark, type Mark, type MarkData } from "@/lib/setlist";
+import { anchorFor, MarkInputSchema, MarkUpdateSchema, readMark, reanchorMark, type MarkData } from "@/lib/setlist";
+import type { WireMark } from "@/lib/wire";
 import { assertMay, requireMember, type Actor } from "./access";
 import { recordChange } from "./changes";
 import { AppError, notFound } from "./errors";
@@ -15,7 +16,7 @@ import { can } from "@/lib/band/roles";
 
 type Db = Kysely<Database> | Transaction<Database>;
 
-export function toMark(r: AnnotationRow): Mark | null {
+export function toMark(r: AnnotationRow): WireMark | null {
   let raw: unknown;
   try {
     raw = JSON.parse(r.data_json);
@@ -42,7 +43,7 @@ async function readableChart(db: Db, m: Membership, chartId: string, now: Date):
   return { chart: parsed.data, revision: row.revision };
 }
 
-export async function listMyMarks(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId?: string): Promise<Mark[]> {
+export async function listMyMarks(db: Kysely<Database>, actor: Actor | null, bandId: string, chartId?: string): Promise<WireMark[]> {
   const m = await requireMember(db, actor, bandId, "personalMarks");
   let q = db.selectFrom("annotations").selectAll().where("band_id", "=", bandId).where("user_id", "=", m.user_id).where("deleted_at", "is", null);
   if (chartId) q = q.where("chart_id", "=", chartId);
@@ -73,7 +74,7 @@ export interface SaveMarkOptions {
  * Creates or replaces the member's own mark, as a member already resolved by the one access check.
  * Shared by the routes and the sync push.
  */
-export async function saveMarkAs(db: Kysely<Database>, m: Membership, { id, chartId, data, baseRevision, now = new Date() }: SaveMarkOptions): Promise<Mark> {
+export async function saveMarkAs(db: Kysely<Database>, m: Membership, { id, chartId, data, baseRevision, now = new Date() }: SaveMarkOptions): Promise<WireMark> {
   assertMay(m, "personalMarks");
   const { chart, revision } = await readableChart(db, m, chartId, now);
   const checked = placed(chart, revision, data);
@@ -101,7 +102,7 @@ export async function saveMarkAs(db: Kysely<Database>, m: Membership, { id, char
     if (current) await trx.updateTable("annotations").set(row).where("id", "=", id).execute();
     else await trx.insertInto("annotations").values(row).execute();
     await recordChange(trx, { bandId: m.band_id, entity: "annotation", entityId: id, op: "upsert", userId: m.user_id });
-    return toMark(row) as Mark;
+    return toMark(row) as WireMark;
   });
 }
 
@@ -122,13 +123,13 @@ export async function deleteMarkAs(db: Kysely<Database>, m: Membership, { id, no
   });
 }
 
-export async function createMark(db: Kysely<Database>, actor: Actor | null, bandId: string, input: unknown, now = new Date()): Promise<Mark> {
+export async function createMark(db: Kysely<Database>, actor: Actor | null, bandId: string, input: unknown, now = new Date()): Promise<WireMark> {
   const m = await requireMember(db, actor, bandId, "personalMarks");
   const data = parseInput(MarkInputSchema, input);
   return saveMarkAs(db, m, { id: data.id ?? newId(), chartId: data.chartId, data: data.data, baseRevision: null, now });
 }
 
-export async function updateMark(db: Kysely<Database>, actor: Actor | null, bandId: string, markId: string, input: unknown, now = new Date()): Promise<Mark> {
+export async function updateMark(db: Kysely<Database>, actor: Actor | null, bandId: string, markId: string, input: unknown, now = new Date()): Promise<WireMark> {
   const m = await requireMember(db, actor, bandId, "personalMarks");
   const data = parseInput(MarkUpdateSchema, input);
   const current = await db.selectFrom("annotations").select(["chart_id", "user_id"]).where("id", "=", markId).where("band_id", "=", bandId).executeTakeFirst();
