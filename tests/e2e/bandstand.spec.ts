@@ -20,7 +20,7 @@ async function pageCount(page: Page): Promise<number> {
   return Number(await shown(page).getAttribute("data-pages"));
 }
 
-test.describe("bandstand view", () => {
+test.describe("bandstand view", { tag: "@phone" }, () => {
   // A phone on a stand: small enough that the tune takes several pages.
   test.use({ viewport: { width: 390, height: 700 } });
 
