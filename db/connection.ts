@@ -1,7 +1,7 @@
 // The one place a database client is created. SQLite (WAL mode, foreign keys on) by default;
 // PostgreSQL through the `pg` pool when DATABASE_URL names a postgres:// server.
 import Database from "better-sqlite3";
-import { Kysely, Migrator, PostgresDialect, sql, SqliteDialect } from "kysely";
+import { CompiledQuery, Kysely, Migrator, PostgresDialect, sql, SqliteDialect, SqliteDriver, type DatabaseConnection, type Driver } from "kysely";
 import fs from "node:fs";
 import path from "node:path";
 import pg from "pg";
@@ -78,13 +78,35 @@ export function openPostgres(url: string, opts: PostgresOptions = {}): Kysely<Sc
   return db;
 }
 
+/**
+ * SQLite transactions begin IMMEDIATE: they take the write lock at their start, waiting for it up to
+ * busy_timeout. A plain (deferred) transaction that reads first and then writes fails at once with
+ * SQLITE_BUSY_SNAPSHOT when another process wrote the file in between, which two app processes on
+ * one file do all the time; waiting at the start is the fix SQLite's documentation gives.
+ */
+class ImmediateSqliteDriver extends SqliteDriver {
+  override async beginTransaction(connection: DatabaseConnection): Promise<void> {
+    await connection.executeQuery(CompiledQuery.raw("begin immediate"));
+  }
+}
+
+class ImmediateSqliteDialect extends SqliteDialect {
+  constructor(private readonly settings: ConstructorParameters<typeof SqliteDialect>[0]) {
+    super(settings);
+  }
+
+  override createDriver(): Driver {
+    return new ImmediateSqliteDriver(this.settings);
+  }
+}
+
 export function openSqlite(file: string): Kysely<Schema> {
   if (file !== ":memory:") fs.mkdirSync(path.dirname(file), { recursive: true });
   const sqlite = new Database(file);
   sqlite.pragma("journal_mode = WAL");
   sqlite.pragma("foreign_keys = ON");
   sqlite.pragma("busy_timeout = 5000");
-  const db = new Kysely<Schema>({ dialect: new SqliteDialect({ database: sqlite }) });
+  const db = new Kysely<Schema>({ dialect: new ImmediateSqliteDialect({ database: sqlite }) });
   handles.set(db, sqlite);
   return db;
 }
