@@ -5,7 +5,7 @@ import { useId, useMemo, useState } from "react";
 import { Button } from "@/components/ui/Button";
 import { Field, SelectField } from "@/components/ui/Field";
 import type { Chart } from "@/lib/chart/model";
-import { anchorFor, MARK_TEXT_MAX, placeAnchor, readMarkBar, type MarkData } from "@/lib/setlist";
+import { anchorFor, MARK_TEXT_MAX, placeAnchor, readMarkBar, readMarkWords, type MarkData } from "@/lib/setlist";
 import { deleteMarkEverywhere, saveMark, useMyMarks, type LocalMark } from "@/components/setlist/data";
 
 interface Props {
@@ -36,6 +36,7 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
   const [barError, setBarError] = useState<string | null>(null);
   const [kind, setKind] = useState<MarkData["kind"]>("text");
   const [text, setText] = useState("");
+  const [textError, setTextError] = useState<string | null>(null);
   const [status, setStatus] = useState("");
   const bars = chart.sections[section]?.bars.length ?? 0;
 
@@ -52,6 +53,7 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
   function reset() {
     setEditing(null);
     setText("");
+    setTextError(null);
   }
 
   async function save(e: React.FormEvent) {
@@ -62,10 +64,16 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
       return setStatus("");
     }
     setBarError(null);
+    const words = readMarkWords(text);
+    if ("error" in words) {
+      setTextError(words.error);
+      return setStatus("");
+    }
+    setTextError(null);
     const anchor = anchorFor(chart, section, picked.bar - 1);
     if (!anchor) return setStatus("That bar is not in the chart.");
-    if (kind === "text" && !text.trim()) return setStatus("Write a few words, or choose a highlight.");
-    const data: MarkData = { anchor, kind, text: text.trim(), chartRevision, lost: false };
+    if (kind === "text" && !words.text) return setStatus("Write a few words, or choose a highlight.");
+    const data: MarkData = { anchor, kind, text: words.text, chartRevision, lost: false };
     await saveMark(bandId, { id: editing?.id, chartId, revision: editing?.revision ?? 0, data });
     setStatus(editing ? "Mark changed." : "Mark added.");
     reset();
@@ -90,9 +98,12 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
         <Field
           label={kind === "text" ? "Words" : "Words (optional)"}
           value={text}
-          maxLength={MARK_TEXT_MAX}
-          hint={`${text.length} of ${MARK_TEXT_MAX} characters: a mark is a few words over one bar.`}
-          onChange={(e) => setText(e.target.value)}
+          error={textError}
+          hint={`${text.trim().length} of ${MARK_TEXT_MAX} characters: a mark is a few words over one bar.`}
+          onChange={(e) => {
+            setText(e.target.value);
+            setTextError(null);
+          }}
           placeholder="breathe here"
           data-testid="mark-text"
         />
