@@ -13,11 +13,12 @@ interface WorldFace {
 export const WORLD_FAMILIES = ["Noto Serif", "Noto Serif JP", "Noto Emoji"] as const;
 
 // Latin, Latin-1 and Latin Extended-A/B, the punctuation and signs our own words use (dashes,
-// quotes, "·", "…", "×", "♩", "♭", "♯"), are drawn without them.
-const OWN_TEXT = /^[\u0000-\u024F\u2010-\u2027\u2030-\u205E\u2669-\u266F\u00D7]*$/u;
+// quotes, "·", "…", "×", "♩", "♭", "♯"), are Academico's and need none of them.
+const OWN_CHAR = /[\s\u0020-\u024F\u2010-\u2027\u2030-\u205E\u2669-\u266F]/u;
 
-export function needsWorldFonts(text: string): boolean {
-  return !OWN_TEXT.test(text);
+/** The characters of `text` that need a world font (so Latin slices of those fonts are never fetched). */
+export function worldChars(text: string): string {
+  return [...new Set(text)].filter((ch) => !OWN_CHAR.test(ch)).join("");
 }
 
 let registered: Promise<void> | null = null;
@@ -40,7 +41,8 @@ function register(): Promise<void> {
 
 /** Resolves once the slices `text` needs are loaded (at once for Latin text, or where fonts can't load). */
 export async function worldFontsFor(text: string): Promise<void> {
-  if (!needsWorldFonts(text) || typeof document === "undefined" || !document.fonts || typeof FontFace === "undefined") return;
+  const chars = worldChars(text);
+  if (!chars || typeof document === "undefined" || !document.fonts || typeof FontFace === "undefined") return;
   await register();
-  await Promise.allSettled(WORLD_FAMILIES.map((family) => document.fonts.load(`16px "${family}"`, text)));
+  await Promise.allSettled(WORLD_FAMILIES.map((family) => document.fonts.load(`16px "${family}"`, chars)));
 }

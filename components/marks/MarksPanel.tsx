@@ -83,7 +83,7 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
     <section aria-labelledby={`${uid}-h`} className="rounded-lg border border-ink-soft p-4" data-testid="marks-panel">
       <h2 id={`${uid}-h`} className="text-lg font-bold">My marks</h2>
       <p className="mb-3 text-sm text-ink-muted">Only you see these, in every key and part, on all your devices.</p>
-      <form onSubmit={save} className="grid gap-3">
+      <form onSubmit={save} className="grid gap-3" noValidate>
         <SelectField label="Section" value={String(section)} onChange={(e) => { setSection(Number(e.target.value)); setBar("1"); setBarError(null); }} options={names.map((n, i) => ({ value: String(i), label: n }))} data-testid="mark-section" />
         <Field label={`Bar (1–${bars})`} type="number" min={1} max={bars} value={bar} error={barError} onChange={(e) => setBar(e.target.value)} data-testid="mark-bar" />
         <fieldset className="flex gap-4">
