@@ -1,10 +1,11 @@
 // Issue 16, the forms a person fills in: errors at their field in plain words (item 6), personal
 // marks that refuse what they cannot keep and say so (item 7), and a refused invite that keeps what
-// was typed and points to the plan (item 12). Each test is named after its item.
+// was typed and points to the plan (item 12), and a sub's access end that follows the gig time on
+// the screen (item 5). Each test is named after its item.
 import { expect, test, type Locator, type Page } from "@playwright/test";
 import { signIn, newPerson } from "./helpers/auth";
 import { DEMO_BAND_ID, demoLeader, demoPlayer } from "./helpers/demo";
-import { chartId } from "./helpers/gig";
+import { addGig, chartId } from "./helpers/gig";
 import { BandsPage } from "./pages/bands";
 import { ChartFormPage } from "./pages/chart-form";
 import { MembersPage } from "./pages/members";
@@ -107,6 +108,20 @@ test.describe("issue 16 forms", () => {
     await mark.getByRole("button", { name: /^Remove the mark/ }).click();
     await expect(mark).toHaveCount(0);
     await expect(panel.getByTestId("mark-status")).toHaveText("Mark removed.");
+  });
+
+  test("item 5: a new set list's share ends the morning after the gig time on the screen, before any reload", async ({ page }) => {
+    const leader = demoLeader();
+    await signIn(page, leader.email, leader.password, band);
+    const id = await addGig(page, "Undated night at the ropewalk", [{ chartId: chartId("morning-at-the-ropewalk") }]);
+    await page.goto(`${band}/setlists/${id}`);
+    const when = page.getByTestId("gig-when");
+    const until = page.getByTestId("share-until");
+    await expect(until).toBeVisible({ timeout: 30_000 });
+    await when.fill("2031-05-17T20:30");
+    await expect(until).toHaveValue("2031-05-18T06:00");
+    await when.fill("2031-06-02T21:00");
+    await expect(until).toHaveValue("2031-06-03T06:00");
   });
 
   test("item 12: an invite refused by the member cap keeps the e-mail address and links to the plan page", async ({ page }) => {
