@@ -35,8 +35,9 @@ export default serwist({
     `${distDir}/static/**/*.{js,css,woff2,woff,svg,png,ico,webp,json,webmanifest}`,
     "public/**/*.{svg,png,ico,webp,woff2,json,webmanifest,txt}",
   ],
-  // Other builds' worker scripts in public/ are not part of this one.
-  globIgnores: ["public/sw*.js", "public/sw*.js.map"],
+  // Other builds' worker scripts in public/ are not part of this one. The fonts for other scripts
+  // (public/fonts/world) are fetched slice by slice when a page needs them and kept by the font cache.
+  globIgnores: ["public/sw*.js", "public/sw*.js.map", "public/fonts/world/**"],
   maximumFileSizeToCacheInBytes: 6 * 1024 * 1024,
   esbuildOptions: {
     define: {

@@ -15,6 +15,7 @@ import { ChartPreview } from "./ChartPreview";
 import type { DrawJob } from "./draw-sheets";
 import type { PageText } from "./engrave";
 import { musicFontsReady } from "./music-fonts";
+import { worldFontsFor } from "./world-fonts";
 import "./sheets.css";
 
 /** The engraving code and its fonts, fetched once. */
@@ -92,10 +93,12 @@ export function PagedChart({
   });
   // `extra` is compared by value so callers can pass a literal.
   const extraKey = JSON.stringify(extra ?? {});
-  const layout = useMemo(
-    () => (width > 0 && height > 0 ? layoutChart(arrangement, { width, height, ...(JSON.parse(extraKey) as Partial<LayoutOptions>) }) : null),
-    [arrangement, width, height, extraKey],
-  );
+  // Marks take a lane of their own under the staff, so they are laid out with the bars.
+  const layout = useMemo(() => {
+    if (width <= 0 || height <= 0) return null;
+    const marks = new Map(JSON.parse(marksKey) as [string, BarMark][]);
+    return layoutChart(arrangement, { width, height, ...(JSON.parse(extraKey) as Partial<LayoutOptions>), marks });
+  }, [arrangement, width, height, extraKey, marksKey]);
 
   useImperativeHandle(controls, () => ({
     next: () => flipper.current?.go(1) ?? false,
@@ -111,8 +114,9 @@ export function PagedChart({
     const pages = layout.pages.length;
     const keepPage = Math.max(1, Math.min(flipper.current ? Number(el.dataset.page ?? 1) : startRef.current === "last" ? Infinity : startRef.current, pages));
     el.dataset.drawn = "false";
-    loadEngraving()
-      .then(([{ drawSheets }]) => {
+    const words = [textKey, ...(JSON.parse(marksKey) as [string, BarMark][]).flatMap(([, m]) => m.texts)].join(" ");
+    Promise.all([loadEngraving(), worldFontsFor(words)])
+      .then(([[{ drawSheets }]]) => {
         if (gone) return;
         const drawnMarks = new Map(JSON.parse(marksKey) as [string, BarMark][]);
         const sheets = drawSheets(el, { layout, writtenKey: arrangement.writtenKey, text: JSON.parse(textKey) as PageText, marks: drawnMarks, startPage: keepPage });

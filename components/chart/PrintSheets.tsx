@@ -8,6 +8,7 @@ import { layoutChart } from "@/lib/render/layout";
 import type { DrawJob } from "./draw-sheets";
 import type { PageText } from "./engrave";
 import { musicFontsReady } from "./music-fonts";
+import { worldFontsFor } from "./world-fonts";
 
 /** A4 within 12 mm margins at 96 px to the inch, near enough to US Letter too. */
 const SHEET = { width: 700, height: 1000, zoom: 1 };
@@ -25,7 +26,7 @@ export function PrintSheets({ arrangement, text }: { arrangement: Arrangement; t
     const finish = () => job?.finish();
     idle(() => {
       if (gone) return;
-      void Promise.all([import("./draw-sheets"), musicFontsReady()]).then(([{ drawSheets }]) => {
+      void Promise.all([import("./draw-sheets"), musicFontsReady(), worldFontsFor(textKey)]).then(([{ drawSheets }]) => {
         if (gone) return;
         const layout = layoutChart(arrangement, SHEET);
         job = drawSheets(el, { layout, writtenKey: arrangement.writtenKey, text: JSON.parse(textKey) as PageText });

@@ -207,7 +207,7 @@ export function engravePage(host: HTMLElement, input: EngraveInput): SVGSVGEleme
       drawSymbols(ctx, layout, b, system, notes, next ? next.noteX : b.x + b.width + 4);
       drawLabels(ctx, b, system);
       const mark = b.bar.source ? input.marks?.get(barKey(b.bar.source)) : undefined;
-      if (mark && group) drawBarMark(group, { x: b.x, width: b.width, systemY: system.y, staffY: system.staffY }, mark);
+      if (mark && group) drawBarMark(group, { x: b.x, width: b.width, staffY: system.staffY, laneY: system.markLaneY, words: b.markWords }, mark);
       ctx.closeGroup();
     });
   }

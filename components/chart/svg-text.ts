@@ -3,11 +3,13 @@
 import type { RenderContext } from "./vexflow";
 import { ENDING_LABEL_SIZE, SUPERSCRIPT_SCALE, labelBoxWidth, splitSymbol } from "@/lib/render/metrics";
 import { displayParts } from "@/lib/render/metrics";
+import { WORLD_FAMILIES } from "./world-fonts";
 
 const NS = "http://www.w3.org/2000/svg";
-// Academico has Latin only: titles in other scripts and emoji fall through to the device's own
-// fonts for those characters (item 14: never dropped), then to any serif.
-export const TEXT_FONT = 'Academico, Georgia, "Noto Serif", "Noto Serif CJK JP", "Noto Sans CJK JP", "PingFang SC", "Hiragino Sans", "Microsoft YaHei", "Apple Color Emoji", "Segoe UI Emoji", "Noto Color Emoji", serif';
+// Academico has Latin only. Greek, Cyrillic, extended Latin, Japanese and emoji come from the Noto
+// faces we serve (world-fonts.ts, the same on every device); other scripts fall through to the
+// device's own fonts, then to any serif, so no character is dropped.
+export const TEXT_FONT = `Academico, ${WORLD_FAMILIES.map((f) => `"${f}"`).join(", ")}, Georgia, "Noto Sans CJK KR", "PingFang SC", "Microsoft YaHei", "Noto Sans Arabic", "Noto Sans Devanagari", serif`;
 
 interface TextStyle {
   size: number;

@@ -5,7 +5,7 @@ import { useId, useMemo, useState } from "react";
 import { Button } from "@/components/ui/Button";
 import { Field, SelectField } from "@/components/ui/Field";
 import type { Chart } from "@/lib/chart/model";
-import { anchorFor, MARK_TEXT_MAX, placeAnchor, readMarkBar, type MarkData } from "@/lib/setlist";
+import { anchorFor, MARK_TEXT_MAX, placeAnchor, readMarkBar, readMarkWords, type MarkData } from "@/lib/setlist";
 import { useMyMarks } from "@/lib/offline/hooks";
 import { deleteMark, saveMark } from "@/lib/offline/setlist-mutations";
 import type { LocalMark } from "@/lib/offline/types";
@@ -38,6 +38,7 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
   const [barError, setBarError] = useState<string | null>(null);
   const [kind, setKind] = useState<MarkData["kind"]>("text");
   const [text, setText] = useState("");
+  const [textError, setTextError] = useState<string | null>(null);
   const [status, setStatus] = useState("");
   const bars = chart.sections[section]?.bars.length ?? 0;
 
@@ -54,6 +55,7 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
   function reset() {
     setEditing(null);
     setText("");
+    setTextError(null);
   }
 
   async function save(e: React.FormEvent) {
@@ -64,10 +66,16 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
       return setStatus("");
     }
     setBarError(null);
+    const words = readMarkWords(text);
+    if ("error" in words) {
+      setTextError(words.error);
+      return setStatus("");
+    }
+    setTextError(null);
     const anchor = anchorFor(chart, section, picked.bar - 1);
     if (!anchor) return setStatus("That bar is not in the chart.");
-    if (kind === "text" && !text.trim()) return setStatus("Write a few words, or choose a highlight.");
-    const data: MarkData = { anchor, kind, text: text.trim(), chartRevision, lost: false };
+    if (kind === "text" && !words.text) return setStatus("Write a few words, or choose a highlight.");
+    const data: MarkData = { anchor, kind, text: words.text, chartRevision, lost: false };
     await saveMark(bandId, { id: editing?.id, chartId, revision: editing?.revision ?? 0, data });
     setStatus(editing ? "Mark changed." : "Mark added.");
     reset();
@@ -77,7 +85,7 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
     <section aria-labelledby={`${uid}-h`} className="rounded-lg border border-ink-soft p-4" data-testid="marks-panel">
       <h2 id={`${uid}-h`} className="text-lg font-bold">My marks</h2>
       <p className="mb-3 text-sm text-ink-muted">Only you see these, in every key and part, on all your devices.</p>
-      <form onSubmit={save} className="grid gap-3">
+      <form onSubmit={save} className="grid gap-3" noValidate>
         <SelectField label="Section" value={String(section)} onChange={(e) => { setSection(Number(e.target.value)); setBar("1"); setBarError(null); }} options={names.map((n, i) => ({ value: String(i), label: n }))} data-testid="mark-section" />
         <Field label={`Bar (1–${bars})`} type="number" min={1} max={bars} value={bar} error={barError} onChange={(e) => setBar(e.target.value)} data-testid="mark-bar" />
         <fieldset className="flex gap-4">
@@ -92,9 +100,12 @@ export function MarksPanel({ bandId, chartId, chart, chartRevision }: Props) {
         <Field
           label={kind === "text" ? "Words" : "Words (optional)"}
           value={text}
-          maxLength={MARK_TEXT_MAX}
-          hint={`${text.length} of ${MARK_TEXT_MAX} characters: a mark is a few words over one bar.`}
-          onChange={(e) => setText(e.target.value)}
+          error={textError}
+          hint={`${text.trim().length} of ${MARK_TEXT_MAX} characters: a mark is a few words over one bar.`}
+          onChange={(e) => {
+            setText(e.target.value);
+            setTextError(null);
+          }}
           placeholder="breathe here"
           data-testid="mark-text"
         />

@@ -2,11 +2,13 @@
 // arrangement and options give the same pages, so every device in the band reads the same turns.
 import type { Arrangement, PerformanceBar } from "@/lib/chart/model";
 import { endingLabel, sameEnding } from "@/lib/chart/endings";
-import type { ChartLayout, Clef, LayoutOptions, Page, PlacedBar, System } from "./types";
+import { barKey } from "@/lib/setlist/marks";
+import type { ChartLayout, Clef, LayoutOptions, MarkWords, Page, PlacedBar, System } from "./types";
 import { minBarWidth, placeChords } from "./bars";
 import { keyAccidentalCount } from "./keys";
 import { BAR_PAD_END, BAR_PAD_START, MARGIN, STAFF_HEIGHT, endingLabelRoom, labelBoxWidth, openingWidth } from "./metrics";
 import { clefFor } from "./part-label";
+import { MARK_LANE_DROP, markLaneHeight, wrapMarkWords } from "./marks";
 
 interface Spacing {
   /** The part label in the corner. */
@@ -81,6 +83,16 @@ interface LineContext {
   firstIntroIndex: number | null;
   /** Compact rows put the chord symbols level with the label box, so symbols start after it. */
   compact: boolean;
+  marks: LayoutOptions["marks"];
+}
+
+/** The bar's mark words wrapped to the room from its beats' start (past a line's clef and key) to its end. */
+function markWordsOf(bar: PerformanceBar, noteX: number, barEnd: number, ctx: LineContext): MarkWords | null {
+  const texts = bar.source ? ctx.marks?.get(barKey(bar.source))?.texts : undefined;
+  if (!texts || texts.length === 0) return null;
+  const x = noteX - BAR_PAD_START + 4;
+  const width = Math.max(24, barEnd - 4 - x);
+  return { x, width, lines: wrapMarkWords(texts.join(" / "), width) };
 }
 
 function placeLine(line: Line, lineIndex: number, ctx: LineContext): PlacedBar[] {
@@ -120,6 +132,7 @@ function placeLine(line: Line, lineIndex: number, ctx: LineContext): PlacedBar[]
       endingStart,
       endingX: endingX(x, first ? opening : 0, label),
       endingEnd: bar.ending !== null && !sameEnding(next, bar),
+      markWords: markWordsOf(bar, noteX, x + width, ctx),
     };
     x += width;
     return placed;
@@ -156,6 +169,7 @@ export function layoutChart(arrangement: Arrangement, options: LayoutOptions): C
     opening,
     firstIntroIndex: arrangement.bars.find((b) => b.part === "intro")?.index ?? null,
     compact,
+    marks: options.marks,
   };
   const lines = breakLines(arrangement.bars, ctx).map((line, i) => placeLine(line, i, ctx));
   const pages = paginate(lines, { width, height, zoom, fontSize, header: options.header ?? true, compact });
@@ -171,6 +185,12 @@ interface PageGeometry {
   compact: boolean;
 }
 
+/** Extra height a system needs for its mark lane (below the slot's own room under the staff). */
+function markLaneExtra(bars: PlacedBar[], sp: Spacing): number {
+  const lines = Math.max(0, ...bars.map((b) => b.markWords?.lines.length ?? 0));
+  return lines > 0 ? MARK_LANE_DROP - (STAFF_HEIGHT + sp.belowStaff) + markLaneHeight(lines) : 0;
+}
+
 function paginate(lines: PlacedBar[][], g: PageGeometry): Page[] {
   const sp = g.compact ? COMPACT : ROOMY;
   const slot = systemHeight(g.fontSize, g.compact);
@@ -182,14 +202,20 @@ function paginate(lines: PlacedBar[][], g: PageGeometry): Page[] {
     const top = sp.topStrip + (header ? sp.header : 0);
     const room = g.height - top - sp.bottom;
     const rows = Math.max(1, Math.floor(room / slot));
-    // Spread spare room between systems on every page alike, so turns don't shift the lines.
-    const pitch = slot + Math.min(Math.max(0, (room - rows * slot) / rows), slot * sp.spread);
-    const systems: System[] = lines.slice(next, next + rows).map((bars, i) => {
-      const y = top + i * pitch;
+    // Spread spare room between systems on every page alike, so turns don't shift the lines. A system
+    // with a mark lane is taller; the systems that no longer fit move to the next page.
+    const gap = Math.min(Math.max(0, (room - rows * slot) / rows), slot * sp.spread);
+    const systems: System[] = [];
+    let y = top;
+    while (next < lines.length && systems.length < rows) {
+      const bars = lines[next] ?? [];
+      const extra = markLaneExtra(bars, sp);
+      if (systems.length > 0 && y + slot + extra > top + room + 0.001) break;
       const staffY = y + staffOffset;
-      return { index: next + i, y, staffY, labelY: y + sp.labelDrop, height: slot, bars };
-    });
-    next += rows;
+      systems.push({ index: next, y, staffY, labelY: y + sp.labelDrop, markLaneY: extra > 0 ? staffY + MARK_LANE_DROP : null, height: slot + extra, bars });
+      y += slot + extra + gap;
+      next++;
+    }
     const earlyTurnIndex = Math.ceil(systems.length / 2);
     const earlyTurnY = systems[earlyTurnIndex]?.y ?? g.height;
     pages.push({ number: pages.length + 1, width: g.width, height: g.height, zoom: g.zoom, systems, header, earlyTurnIndex, earlyTurnY });

@@ -26,6 +26,15 @@ export interface LayoutOptions {
    * between systems, so a laptop screen holds more lines. The bandstand keeps the roomy default.
    */
   compact?: boolean;
+  /** The reader's personal marks by bar (`${section}:${bar}` of the bar's source); their words get a lane of their own. */
+  marks?: ReadonlyMap<string, { texts: readonly string[] }>;
+}
+
+/** A bar's mark words as laid out in its system's mark lane: wrapped lines inside [x, x + width]. */
+export interface MarkWords {
+  x: number;
+  width: number;
+  lines: string[];
 }
 
 export interface ChordBox {
@@ -58,6 +67,8 @@ export interface PlacedBar {
   /** Where an ending bracket opening on this bar starts (after a label box, or a line's clef and key). */
   endingX: number;
   endingEnd: boolean;
+  /** This reader's mark words under the bar, or null. */
+  markWords: MarkWords | null;
 }
 
 export interface System {
@@ -67,6 +78,8 @@ export interface System {
   staffY: number;
   /** Top of the rehearsal-label box. */
   labelY: number;
+  /** Top of the lane under the staff that holds mark words, or null when no bar of the system has any. */
+  markLaneY: number | null;
   height: number;
   bars: PlacedBar[];
 }

@@ -146,3 +146,11 @@ export function readMarkBar(typed: string, bars: number): { bar: number } | { er
   if (n < 1 || n > bars) return { error: `This section has ${bars} ${bars === 1 ? "bar" : "bars"}: give a bar number from 1 to ${bars}.` };
   return { bar: n };
 }
+
+/** The words a player typed for a mark, or why they cannot be kept: never cut short without saying so. */
+export function readMarkWords(typed: string): { text: string } | { error: string } {
+  const text = typed.trim();
+  const count = text.length;
+  if (count > MARK_TEXT_MAX) return { error: `A mark holds up to ${MARK_TEXT_MAX} characters; this one has ${count}. Shorten it to fit over one bar.` };
+  return { text };
+}

@@ -69,3 +69,35 @@ test.describe("issue 16 review screenshots", () => {
     await toggle.click();
   });
 });
+
+// Items 7 and 13 at a 390 px phone and a laptop: the crowded chart as drawn, then with three marks
+// (files issue16-13-<size>-<phase>.png and issue16-7-<size>-<phase>.png).
+test.describe("issue 16 review screenshots of the engraving", () => {
+  test.skip(!PHASE, "set ISSUE16_SHOTS=before or after");
+  test("items 7 and 13", async ({ page }) => {
+    test.setTimeout(180_000);
+    const leader = demoLeader();
+    await signIn(page, leader.email, leader.password, `/bands/${DEMO_BAND_ID}`);
+    const crowded = await addChart(page, { title: CROWDED_TITLE, key: "C", tempo: 180, composer: "Odile Marchbank", text: CROWDED_TEXT });
+    await waitForBook(page, CROWDED_TITLE.slice(0, 20));
+    const sizes = [["phone", { width: 390, height: 760 }], ["laptop", { width: 1280, height: 800 }]] as const;
+    const snap = async (item: string) => {
+      for (const [name, size] of sizes) {
+        await page.setViewportSize(size);
+        await page.goto(`/bands/${DEMO_BAND_ID}/charts/${crowded}`);
+        await drawn(page);
+        await page.locator('[data-testid="chart-page"] [data-sheet="1"]').screenshot({ path: `test-results/screenshots/issue16-${item}-${name}-${PHASE}.png` });
+      }
+    };
+    await snap("13");
+    const panel = page.getByTestId("marks-panel");
+    for (const [bar, text] of [["1", "breathe, then push the band hard into the turnaround"], ["7", "first ending only on the last chorus, watch Odile"], ["8", "horns cue"]]) {
+      await panel.getByTestId("mark-section").selectOption({ index: 0 });
+      await panel.getByTestId("mark-bar").fill(bar!);
+      await panel.getByTestId("mark-text").fill(text!);
+      await panel.getByTestId("mark-save").click();
+      await expect(panel.getByTestId("my-mark").filter({ hasText: text! })).toHaveCount(1);
+    }
+    await snap("7");
+  });
+});

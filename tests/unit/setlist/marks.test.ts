@@ -1,7 +1,7 @@
 // Personal marks follow their bar when the leader revises the chart, and are flagged when it is gone.
 import { describe, expect, it } from "vitest";
 import { ChartSchema, type Chart } from "@/lib/chart/model";
-import { anchorFor, MarkDataSchema, marksByBar, placeAnchor, reanchorMark, readMarkBar, type MarkData } from "@/lib/setlist";
+import { anchorFor, MARK_TEXT_MAX, MarkDataSchema, marksByBar, placeAnchor, reanchorMark, readMarkBar, readMarkWords, type MarkData } from "@/lib/setlist";
 import { bar, harbourChart } from "./fixture";
 
 function markOn(chart: Chart, section: number, barIndex: number, text = "watch the dim"): MarkData {
@@ -104,5 +104,15 @@ describe("item 7: the bar of a personal mark", () => {
     expect(readMarkBar("2.5", 8)).toHaveProperty("error");
     expect(readMarkBar("", 8)).toEqual({ error: "Give a bar number from 1 to 8." });
     expect(readMarkBar("8", 8)).toEqual({ bar: 8 });
+  });
+});
+
+describe("item 7: the words of a personal mark", () => {
+  it("says when the words are over the limit instead of cutting them at 60 characters", () => {
+    const long = "keep the brushes soft under the singer until the last chorus, then dig in";
+    const r = readMarkWords(long);
+    expect(r).toEqual({ error: `A mark holds up to ${MARK_TEXT_MAX} characters; this one has ${long.length}. Shorten it to fit over one bar.` });
+    expect(readMarkWords("  breathe here ")).toEqual({ text: "breathe here" });
+    expect(readMarkWords("x".repeat(MARK_TEXT_MAX))).toEqual({ text: "x".repeat(MARK_TEXT_MAX) });
   });
 });
