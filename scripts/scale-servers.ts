@@ -11,6 +11,7 @@ import type { Kysely } from "kysely";
 import { migrateToLatest, openDatabase } from "../db/connection";
 import type { Database } from "../db/schema";
 import { hashPassword } from "../lib/server/users";
+import { signInWithPassword } from "./sign-in-client";
 
 const root = path.resolve(import.meta.dirname, "..");
 export const PASSWORD = "scale-only-password";
@@ -127,27 +128,8 @@ export async function seedBand(db: Kysely<Database>, label: string): Promise<{ b
 }
 
 /** Signs in through next-auth's password callback at `base`; returns the cookie header. */
-export async function signIn(base: string, email: string): Promise<string> {
-  const jar = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const c of res.headers.getSetCookie()) {
-      const [k, ...v] = (c.split(";")[0] ?? "").split("=");
-      if (k) jar.set(k.trim(), v.join("="));
-    }
-  };
-  const header = () => [...jar.entries()].map(([k, v]) => `${k}=${v}`).join("; ");
-  const csrf = await fetch(`${base}/api/auth/csrf`);
-  keep(csrf);
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const res = await fetch(`${base}/api/auth/callback/password`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: header() },
-    body: new URLSearchParams({ csrfToken, email, password: PASSWORD, json: "true" }),
-  });
-  keep(res);
-  if (![...jar.keys()].some((k) => k.includes("session-token"))) throw new Error(`sign-in failed (${res.status})`);
-  return header();
+export function signIn(base: string, email: string): Promise<string> {
+  return signInWithPassword(base, email, PASSWORD);
 }
 
 /** An invented 8-bar chart text; `n` varies the changes so each edit says something new. */

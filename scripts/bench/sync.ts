@@ -16,6 +16,7 @@ import http from "node:http";
 import os from "node:os";
 import path from "node:path";
 import { rerunWithServerOnlyStub } from "./server-only-hook";
+import { signInWithPassword } from "../sign-in-client";
 
 rerunWithServerOnlyStub();
 
@@ -89,28 +90,8 @@ async function waitFor(url: string, child: ChildProcess | null): Promise<boolean
 }
 
 /** Signs in through next-auth's credentials callback and returns the cookie header. */
-async function signIn(base: string, email: string): Promise<string> {
-  const jar = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(";");
-      const [k, ...v] = (pair ?? "").split("=");
-      if (k) jar.set(k.trim(), v.join("="));
-    }
-  };
-  const header = () => [...jar.entries()].map(([k, v]) => `${k}=${v}`).join("; ");
-  const csrfRes = await fetch(`${base}/api/auth/csrf`);
-  keep(csrfRes);
-  const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
-  const res = await fetch(`${base}/api/auth/callback/password`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: header() },
-    body: new URLSearchParams({ csrfToken, email, password: PASSWORD, json: "true" }),
-  });
-  keep(res);
-  if (![...jar.keys()].some((k) => k.includes("session-token"))) throw new Error(`sign-in failed (${res.status})`);
-  return header();
+function signIn(base: string, email: string): Promise<string> {
+  return signInWithPassword(base, email, PASSWORD);
 }
 
 /** The same server code behind a bare node:http server (when no Next build is there to start). */
